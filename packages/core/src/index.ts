@@ -1,0 +1,5 @@
+export type {Point, SourceRange, Diagnostic} from './source-range.ts'
+export type {Digraph, EdgeList} from './graph/digraph.ts'
+export {createDigraph, outDegree, inDegree, opposite, edgePairs} from './graph/digraph.ts'
+export type {RotationSystem, Faces} from './embedding/rotation-system.ts'
+export {dartTail, dartHead, dartFrom, nextDarts, traceFaces} from './embedding/rotation-system.ts'
