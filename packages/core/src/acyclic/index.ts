@@ -1,0 +1,3 @@
+export type {Cycle, AcyclicityResult} from './find-cycle.ts'
+export {findCycle} from './find-cycle.ts'
+export {verifyCycle} from './verify-cycle.ts'
