@@ -4,3 +4,4 @@ export {createDigraph, outDegree, inDegree, opposite, edgePairs} from './graph/d
 export type {RotationSystem, Faces} from './embedding/rotation-system.ts'
 export {dartTail, dartHead, dartFrom, nextDarts, traceFaces} from './embedding/rotation-system.ts'
 export * from './acyclic/index.ts'
+export * from './parse/index.ts'
