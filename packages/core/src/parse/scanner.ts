@@ -205,6 +205,8 @@ export function showCharacter(character: string): string {
 function unexpectedReason(character: string): string {
   const shown = showCharacter(character)
   if (character === '-') return `Unexpected character ${shown}: an arrow is written \`->\`, and an id cannot start with \`-\`.`
+  if (/^[\p{White_Space}\p{Cf}]$/u.test(character)) return `Unexpected character ${shown}: only spaces and tabs may separate ids, arrows and commas.`
+  if (/^\p{M}$/u.test(character)) return `Unexpected character ${shown}: a combining mark may only follow a letter or digit inside an id.`
   if (character === '>') return `Unexpected character ${shown}: an arrow is written \`->\`.`
   return `Unexpected character ${shown}: ids use letters, digits, \`_\`, \`-\` and \`.\`, and labels go in double quotes.`
 }
