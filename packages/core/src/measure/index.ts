@@ -1,0 +1,5 @@
+export type {TextMetrics} from './measure-text.ts'
+export {FONT_STACK, advanceUnits, measureText} from './measure-text.ts'
+export type {LabelBox, LabelBoxOptions} from './label-box.ts'
+export {LABEL_DEFAULTS, labelBox, labelLines} from './label-box.ts'
+export {FONT_FAMILY, FONT_VERSION, UNITS_PER_EM} from './font-metrics.generated.ts'
