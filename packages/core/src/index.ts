@@ -6,3 +6,4 @@ export {dartTail, dartHead, dartFrom, nextDarts, traceFaces} from './embedding/r
 export * from './acyclic/index.ts'
 export * from './parse/index.ts'
 export * from './measure/index.ts'
+export * from './planarity/index.ts'

@@ -1,0 +1,73 @@
+/**
+ * The simple undirected graph underneath a digraph: directions dropped, self-loops set aside, and
+ * parallel edges (u->v twice, or u->v and v->u) collapsed onto the first of them. A multigraph with
+ * loops is planar iff this simplification is (common practice: a loop or a parallel copy can always be
+ * drawn next to its vertex or its twin). O(n + m) with a stamp per vertex instead of sorting.
+ */
+import type {Digraph} from '../graph/digraph.ts'
+import type {SimpleGraph} from './left-right.ts'
+
+export interface Simplified {
+  readonly simple: SimpleGraph
+  /** g's edge id standing for each simple edge (the first of its parallel class). */
+  readonly original: Int32Array
+  /** g's other edges parallel to simple edge s: parallel[parallelStart[s] .. parallelStart[s+1]). */
+  readonly parallelStart: Int32Array
+  readonly parallel: Int32Array
+  /** g's self-loops. */
+  readonly loops: Int32Array
+}
+
+export function simplify(g: Digraph): Simplified {
+  const n = g.vertexCount
+  const m = g.edgeCount
+  const stamp = new Int32Array(n).fill(-1)
+  const simpleAt = new Int32Array(n)
+  const classOf = new Int32Array(m).fill(-1) // simple edge of each non-loop g edge
+  const a = new Int32Array(m)
+  const b = new Int32Array(m)
+  const original = new Int32Array(m)
+  let k = 0
+  const loops: number[] = []
+  const visit = (u: number, e: number, w: number): void => {
+    if (w <= u) return // loops are taken from out-lists only; other edges from their smaller end
+    if (stamp[w] !== u) {
+      stamp[w] = u
+      simpleAt[w] = k
+      a[k] = u
+      b[k] = w
+      original[k++] = e
+    }
+    classOf[e] = simpleAt[w]!
+  }
+  for (let u = 0; u < n; u++) {
+    for (let i = g.outStart[u]!; i < g.outStart[u + 1]!; i++) {
+      const e = g.outEdges[i]!
+      if (g.head[e] === u) loops.push(e)
+      else visit(u, e, g.head[e]!)
+    }
+    for (let i = g.inStart[u]!; i < g.inStart[u + 1]!; i++) {
+      const e = g.inEdges[i]!
+      if (g.tail[e] !== u) visit(u, e, g.tail[e]!)
+    }
+  }
+  const parallelStart = new Int32Array(k + 1)
+  for (let e = 0; e < m; e++) {
+    const s = classOf[e]!
+    if (s >= 0 && original[s] !== e) parallelStart[s + 1]!++
+  }
+  for (let s = 0; s < k; s++) parallelStart[s + 1]! += parallelStart[s]!
+  const parallel = new Int32Array(parallelStart[k]!)
+  const fill = parallelStart.slice(0, k)
+  for (let e = 0; e < m; e++) {
+    const s = classOf[e]!
+    if (s >= 0 && original[s] !== e) parallel[fill[s]!++] = e
+  }
+  return {
+    simple: {vertexCount: n, a: a.slice(0, k), b: b.slice(0, k)},
+    original: original.slice(0, k),
+    parallelStart,
+    parallel,
+    loops: Int32Array.from(loops),
+  }
+}

@@ -1,0 +1,62 @@
+/**
+ * Planarity of a digraph's underlying undirected graph, with a certificate either way: a rotation
+ * system over g's own edge ids (left-right test, Brandes 2009; see left-right.ts), or a subdivided K5
+ * or K3,3 (see kuratowski.ts). Directions are ignored.
+ *
+ * Multigraphs: parallel edges are placed right beside their twin (at the twin's tail just after it,
+ * at its head just before it, so each extra copy bounds a two-sided face), and a self-loop appears twice,
+ * consecutively, in its vertex's rotation (one entry per end). Note that rotation-system.ts's dart
+ * functions cannot tell the two ends of a loop apart, so use verifyPlanarEmbedding (which can) on
+ * graphs with loops; loop-free graphs work with traceFaces as usual.
+ *
+ * Time: O(n + m) for a planar graph; the Kuratowski extraction costs more, see kuratowski.ts.
+ */
+import type {Digraph} from '../graph/digraph.ts'
+import type {RotationSystem} from '../embedding/rotation-system.ts'
+import type {PlanarityResult} from './index.ts'
+import {embedPlanarSimple, type SimpleRotation} from './left-right.ts'
+import {classifySubdivision, minimalNonplanarEdges} from './kuratowski.ts'
+import {simplify, type Simplified} from './simplify.ts'
+
+export function testPlanarity(g: Digraph): PlanarityResult {
+  const s = simplify(g)
+  const rot = embedPlanarSimple(s.simple)
+  if (rot !== null) return {planar: true, embedding: liftRotation(g, s, rot)}
+  const k = classifySubdivision(s.simple, minimalNonplanarEdges(s.simple))
+  const edges = Array.from(k.edges, (e) => s.original[e]!).sort((x, y) => x - y)
+  return {planar: false, kuratowski: {type: k.type, branch: k.branch, edges}}
+}
+
+function liftRotation(g: Digraph, s: Simplified, rot: SimpleRotation): RotationSystem {
+  const n = g.vertexCount
+  const loopCount = new Int32Array(n)
+  for (const e of s.loops) loopCount[g.tail[e]!]!++
+  const rotation: Int32Array[] = []
+  const fill = new Int32Array(n)
+  for (let v = 0; v < n; v++) {
+    rotation.push(new Int32Array(g.outStart[v + 1]! - g.outStart[v]! + g.inStart[v + 1]! - g.inStart[v]!))
+  }
+  for (let v = 0; v < n; v++) {
+    const r = rotation[v]!
+    let k = 0
+    for (let i = rot.start[v]!; i < rot.start[v + 1]!; i++) {
+      const se = rot.order[i]!
+      const rep = s.original[se]!
+      const p0 = s.parallelStart[se]!, p1 = s.parallelStart[se + 1]!
+      if (g.tail[rep] === v) {
+        r[k++] = rep
+        for (let j = p0; j < p1; j++) r[k++] = s.parallel[j]!
+      } else {
+        for (let j = p1 - 1; j >= p0; j--) r[k++] = s.parallel[j]!
+        r[k++] = rep
+      }
+    }
+    fill[v] = k
+  }
+  for (const e of s.loops) {
+    const v = g.tail[e]!
+    rotation[v]![fill[v]!++] = e
+    rotation[v]![fill[v]!++] = e
+  }
+  return {graph: g, rotation}
+}
