@@ -1,0 +1,6 @@
+export type {Io} from './lib/program.ts'
+export {run, exitCodes} from './lib/program.ts'
+export type {FileReport} from './lib/check-files.ts'
+export {checkFile} from './lib/check-files.ts'
+export type {JsonReport, JsonDiagram, JsonMessage} from './lib/format-json.ts'
+export {toJsonReport} from './lib/format-json.ts'

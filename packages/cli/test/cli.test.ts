@@ -1,0 +1,107 @@
+import {mkdirSync, mkdtempSync, writeFileSync} from 'node:fs'
+import {tmpdir} from 'node:os'
+import path from 'node:path'
+import {spawnSync} from 'node:child_process'
+import {fileURLToPath} from 'node:url'
+import {describe, expect, it} from 'vitest'
+import {run, type JsonReport} from '@upright/cli'
+
+const root = fileURLToPath(new URL('../../../', import.meta.url))
+
+async function cli(args: string[], env: Record<string, string> = {}) {
+  let stdout = ''
+  let stderr = ''
+  const code = await run(args, {
+    cwd: root,
+    env,
+    stdout: {write: (s: string) => (stdout += s)},
+    stderr: {write: (s: string) => (stderr += s)}
+  })
+  return {code, stdout, stderr}
+}
+
+describe('upright check', () => {
+  it('reports a cycle in compiler format with a code frame and exits 1', async () => {
+    const {code, stdout} = await cli(['check', 'fixtures/cli/cycle.upright'])
+    expect(code).toBe(1)
+    expect(stdout).toContain('fixtures/cli/cycle.upright:3:1: error: These 3 edges form a cycle `a -> b -> c -> a`')
+    expect(stdout).toContain('[cycle]')
+    expect(stdout).toContain('  3 | c -> a\n    | ^^^^^^')
+    expect(stdout.trim().split('\n').at(-1)).toBe('1 diagram in 1 file: 0 passed, 1 failed')
+    expect(stdout).not.toContain('\u001b[')
+  })
+
+  it('prints the JSON shape with file positions and a cycle certificate', async () => {
+    const {code, stdout} = await cli(['check', '--format', 'json', 'fixtures/markdown/cycle-in-blockquote.md'])
+    expect(code).toBe(1)
+    const report = JSON.parse(stdout) as JsonReport
+    expect(report).toEqual({
+      diagrams: [
+        {
+          file: 'fixtures/markdown/cycle-in-blockquote.md',
+          line: 7,
+          column: 3,
+          status: 'cycle',
+          messages: [
+            {
+              line: 9,
+              column: 3,
+              endLine: 9,
+              endColumn: 16,
+              severity: 'error',
+              ruleId: 'cycle',
+              reason: expect.stringContaining('`build -> test -> ship -> build`')
+            }
+          ],
+          certificate: {kind: 'cycle', vertices: ['build', 'test', 'ship']}
+        }
+      ],
+      summary: {diagrams: 1, passed: 0, failed: 1}
+    })
+  })
+
+  it('exits 2 on an unreadable path and still checks the others', async () => {
+    const {code, stdout, stderr} = await cli(['check', 'no/such/file.md', 'fixtures/cli/cycle.upright'])
+    expect(code).toBe(2)
+    expect(stderr).toContain('cannot read no/such/file.md: no such file or directory')
+    expect(stdout).toContain('1 diagram in 1 file')
+  })
+
+  it('exits 2 on a usage error', async () => {
+    expect((await cli(['check'])).code).toBe(2)
+    expect((await cli(['check', '--format', 'xml', 'x.md'])).code).toBe(2)
+    expect((await cli(['frobnicate'])).code).toBe(2)
+  })
+
+  it('reports invalid UTF-8 for that file only', async () => {
+    const dir = mkdtempSync(path.join(tmpdir(), 'upright-'))
+    writeFileSync(path.join(dir, 'bad.md'), Buffer.from([0x23, 0x20, 0xff, 0xfe, 0x0a]))
+    writeFileSync(path.join(dir, 'cycle.upright'), 'x -> x\n')
+    const {code, stdout} = await cli(['check', dir])
+    expect(code).toBe(2)
+    expect(stdout).toMatch(/bad\.md: error: cannot read: not valid UTF-8 text \[io\]/)
+    expect(stdout).toContain('cycle.upright:1:1: error:')
+  })
+
+  it('walks folders in sorted order, skipping node_modules and dot-folders', async () => {
+    const dir = mkdtempSync(path.join(tmpdir(), 'upright-'))
+    for (const sub of ['b', 'a', 'node_modules', '.hidden']) {
+      const d = path.join(dir, sub)
+      mkdirSync(d)
+      writeFileSync(path.join(d, 'x.upright'), 'p -> p\n')
+    }
+    const {stdout} = await cli(['check', '--format', 'json', dir])
+    const files = (JSON.parse(stdout) as JsonReport).diagrams.map((d) => d.file)
+    expect(files).toEqual([path.relative(root, path.join(dir, 'a/x.upright')), path.relative(root, path.join(dir, 'b/x.upright'))])
+  })
+
+  it('runs as `pnpm upright` from the repository root (no build step)', () => {
+    const result = spawnSync('npx', ['--yes', 'pnpm@12.4.2', '--silent', 'upright', 'check', 'fixtures/cli/cycle.upright'], {
+      cwd: root,
+      encoding: 'utf8',
+      env: {...process.env, NO_COLOR: '1'}
+    })
+    expect(result.status).toBe(1)
+    expect(result.stdout).toContain('fixtures/cli/cycle.upright:3:1: error:')
+  })
+})

@@ -1,0 +1,13 @@
+/**
+ * Certificates in the user's vocabulary (vertex ids as written, edges directed as written): what the
+ * CLI prints as JSON and what a reviewer can re-check by hand.
+ */
+export type UserEdge = [string, string]
+
+export type Certificate =
+  | {kind: 'cycle'; vertices: string[]}
+  | {kind: 'kuratowski'; type: 'K5' | 'K3,3'; branch: string[]; edges: UserEdge[]}
+  | {kind: 'obstruction'; edges: UserEdge[]}
+
+/** Every outcome of checking one diagram. `upward` is the only passing one. */
+export type DiagramStatus = 'upward' | 'cycle' | 'nonplanar' | 'not-upward' | 'syntax' | 'undecided'

@@ -1,0 +1,55 @@
+/**
+ * The pipeline for one diagram body: parse → graph → acyclic? → planar? → upward planar?
+ * Each stage either passes its witness on or stops with a certificate and messages that point at the
+ * writer's own lines. Stages only read what earlier stages produced; nothing reaches back.
+ */
+import {findCycle} from '../acyclic/index.ts'
+import {createDigraph, type Digraph} from '../graph/digraph.ts'
+import {parseDiagram, type ParsedDiagram} from '../parse/index.ts'
+import type {Diagnostic} from '../source-range.ts'
+import type {Certificate, DiagramStatus} from './certificate.ts'
+import {cycleFailure} from './failures.ts'
+
+export interface CheckSettings {
+  /** Milliseconds the upward test may spend on this diagram before answering `undecided`. */
+  budgetMillis?: number
+  /** Clock for the budget (injectable for tests); defaults to `performance.now`. */
+  now?: () => number
+}
+
+export const defaultBudgetMillis = 3000
+
+export interface DiagramCheck {
+  status: DiagramStatus
+  /** Errors and warnings in diagram-body coordinates, parse warnings first. */
+  diagnostics: Diagnostic[]
+  certificate?: Certificate
+  parsed: ParsedDiagram
+  /** The graph, once the text parsed: vertex i is `parsed.vertices[i]`, edge j is `parsed.edges[j]`. */
+  graph?: Digraph
+}
+
+export function checkDiagram(text: string, settings: Readonly<CheckSettings> = {}): DiagramCheck {
+  void settings
+  const parsed = parseDiagram(text)
+  const diagnostics = [...parsed.diagnostics]
+  if (diagnostics.some((d) => d.severity === 'error')) return {status: 'syntax', diagnostics, parsed}
+
+  const graph = createDigraph(
+    parsed.vertices.length,
+    parsed.edges.map((e) => [e.from, e.to] as const)
+  )
+  const acyclic = findCycle(graph)
+  if (!acyclic.acyclic) {
+    const failure = cycleFailure(parsed, acyclic.cycle)
+    return {status: 'cycle', diagnostics: [...diagnostics, failure.diagnostic], certificate: failure.certificate, parsed, graph}
+  }
+
+  diagnostics.push({
+    severity: 'error',
+    ruleId: 'check-unavailable',
+    reason: 'The diagram has no cycle, but the planarity and upward checks are not part of this build yet, so it cannot be certified.',
+    range: parsed.vertices[0]!.range
+  })
+  return {status: 'undecided', diagnostics, parsed, graph}
+}

@@ -1,0 +1,6 @@
+export type {Options} from './lib/plugin.ts'
+export {default, checkTree, messageSource} from './lib/plugin.ts'
+export type {DiagramBlock} from './lib/blocks.ts'
+export {findDiagramBlocks, diagramName} from './lib/blocks.ts'
+export type {BlockMessage, BlockResult} from './lib/check-block.ts'
+export {parseMarkdown} from './lib/parse-markdown.ts'
