@@ -60,6 +60,20 @@ describe('upright check', () => {
     })
   })
 
+  it('reports a subdivided K3,3 with its branch vertices and edges (Kuratowski 1930)', async () => {
+    const {code, stdout} = await cli(['check', '--format', 'json', 'fixtures/cli/k33.upright'])
+    expect(code).toBe(1)
+    const [diagram] = (JSON.parse(stdout) as JsonReport).diagrams
+    expect(diagram!.status).toBe('nonplanar')
+    expect(diagram!.certificate).toEqual({
+      kind: 'kuratowski',
+      type: 'K3,3',
+      branch: ['a', 'b', 'c', 'x', 'y', 'z'],
+      edges: ['a', 'b', 'c'].flatMap((u) => ['x', 'y', 'z'].map((v) => [u, v]))
+    })
+    expect(diagram!.messages[0]!.reason).toBe('These 9 edges form a subdivided K3,3, so no drawing of them avoids a crossing.')
+  })
+
   it('exits 2 on an unreadable path and still checks the others', async () => {
     const {code, stdout, stderr} = await cli(['check', 'no/such/file.md', 'fixtures/cli/cycle.upright'])
     expect(code).toBe(2)

@@ -8,7 +8,8 @@ import {createDigraph, type Digraph} from '../graph/digraph.ts'
 import {parseDiagram, type ParsedDiagram} from '../parse/index.ts'
 import type {Diagnostic} from '../source-range.ts'
 import type {Certificate, DiagramStatus} from './certificate.ts'
-import {cycleFailure} from './failures.ts'
+import {testPlanarity} from '../planarity/index.ts'
+import {cycleFailure, kuratowskiFailure} from './failures.ts'
 
 export interface CheckSettings {
   /** Milliseconds the upward test may spend on this diagram before answering `undecided`. */
@@ -45,10 +46,16 @@ export function checkDiagram(text: string, settings: Readonly<CheckSettings> = {
     return {status: 'cycle', diagnostics: [...diagnostics, failure.diagnostic], certificate: failure.certificate, parsed, graph}
   }
 
+  const planarity = testPlanarity(graph)
+  if (!planarity.planar) {
+    const failure = kuratowskiFailure(parsed, planarity.kuratowski)
+    return {status: 'nonplanar', diagnostics: [...diagnostics, failure.diagnostic], certificate: failure.certificate, parsed, graph}
+  }
+
   diagnostics.push({
     severity: 'error',
     ruleId: 'check-unavailable',
-    reason: 'The diagram has no cycle, but the planarity and upward checks are not part of this build yet, so it cannot be certified.',
+    reason: 'The diagram has no cycle and can be drawn without crossings, but the upward check is not part of this build yet, so it cannot be certified.',
     range: parsed.vertices[0]!.range
   })
   return {status: 'undecided', diagnostics, parsed, graph}

@@ -4,9 +4,10 @@
  */
 import type {Cycle} from '../acyclic/index.ts'
 import type {ParsedDiagram} from '../parse/index.ts'
+import type {KuratowskiSubgraph} from '../planarity/index.ts'
 import type {Diagnostic} from '../source-range.ts'
 import type {Certificate} from './certificate.ts'
-import {edgeName, vertexName} from './describe.ts'
+import {edgeName, plural, vertexName} from './describe.ts'
 
 export interface Failure {
   diagnostic: Diagnostic
@@ -30,6 +31,28 @@ export function cycleFailure(parsed: ParsedDiagram, cycle: Cycle): Failure {
       range: parsed.edges[closing]!.range,
       note: 'A drawing in which every arrow points one way orders the vertices along that direction; a cycle would have to return to where it started. Remove or reverse one edge of the cycle.',
       related: cycle.edges.map((e) => ({range: parsed.edges[e]!.range, reason: `\`${edgeName(parsed, e)}\` is on the cycle`}))
+    }
+  }
+}
+
+export function kuratowskiFailure(parsed: ParsedDiagram, k: KuratowskiSubgraph): Failure {
+  const edges = k.edges.map((e) => [vertexName(parsed, parsed.edges[e]!.from), vertexName(parsed, parsed.edges[e]!.to)] as [string, string])
+  const branch = k.branch.map((v) => vertexName(parsed, v))
+  const shape =
+    k.type === 'K5'
+      ? `five vertices (${branch.join(', ')}) each joined to every other`
+      : `two groups of three (${branch.slice(0, 3).join(', ')} and ${branch.slice(3).join(', ')}) with each vertex of one joined to each of the other`
+  // Point at the edge written last: the likeliest to be the change that broke the diagram.
+  const last = k.edges.reduce((a, b) => (parsed.edges[b]!.range.start.offset > parsed.edges[a]!.range.start.offset ? b : a))
+  return {
+    certificate: {kind: 'kuratowski', type: k.type, branch, edges},
+    diagnostic: {
+      severity: 'error',
+      ruleId: 'nonplanar',
+      reason: `These ${plural(k.edges.length, 'edge')} form a subdivided ${k.type}, so no drawing of them avoids a crossing.`,
+      range: parsed.edges[last]!.range,
+      note: `They connect ${shape}, directly or through chains of other vertices; by Kuratowski's theorem (1930) no such pattern can be drawn in the plane without two lines crossing, whichever way the arrows point. Removing one of these edges breaks the pattern.`,
+      related: k.edges.map((e) => ({range: parsed.edges[e]!.range, reason: `\`${edgeName(parsed, e)}\` is part of the ${k.type}`}))
     }
   }
 }
