@@ -1,0 +1,212 @@
+/**
+ * Upward planarity of a digraph with a FIXED planar embedding (Bertolazzi, Di Battista, Liotta &
+ * Mannino, "Upward drawings of triconnected digraphs", Algorithmica 12, 1994, section 3).
+ *
+ * With every vertex bimodal, call an angle of a face a switch when both of its edges point into the
+ * vertex or both point out of it; a face with 2·n_f switch angles needs n_f − 1 large angles if it
+ * is inner and n_f + 1 if it is the outer face, and only a source or a sink can have a large angle,
+ * exactly one each. The embedding (with outer face f0) is upward iff such an assignment exists.
+ * Angles are counted, not faces: a cut vertex can meet one face in several angles and a degree-1
+ * vertex has one 360° angle, a switch (see /work/shared facts; checked against a brute-force oracle
+ * in the tests). By Euler's formula the capacities add up to the number of sources plus sinks, so
+ * the assignment is a maximum bipartite b-matching, solved as a flow:
+ *   source -> each source/sink of G (capacity 1) -> each face where it has an angle (capacity 1)
+ *   -> sink (capacity n_f − 1, plus 2 for the outer face).
+ * One max flow with every face inner (Dinic, O(m·√n)) falls at most 2 short; each candidate outer
+ * face then gets +2 capacity and at most two more augmenting paths on a copy, O(m) per face. Without
+ * a given outer face that is O(m·√n + F·m) = O(n²) worst case on a planar graph.
+ *
+ * A graph is upward planar iff each connected component is: components can be drawn side by side.
+ * Each component is solved on its own and gets its own outer face.
+ */
+import type {Digraph} from '../graph/digraph.ts'
+import {dartHead, nextDarts, traceFaces, type RotationSystem} from '../embedding/rotation-system.ts'
+import {findCycle, type Cycle} from '../acyclic/find-cycle.ts'
+import {verifyPlanarEmbedding} from '../planarity/verify-embedding.ts'
+import {isBimodal} from './bimodal.ts'
+import {copyFlowNetwork, FlowNetworkBuilder, maxFlow, type FlowNetwork} from './max-flow.ts'
+import type {UpwardEmbedding} from './upward-embedding.ts'
+
+export interface UpwardEmbeddedOptions {
+  /**
+   * Face index (into traceFaces(emb).darts) that must be the outer face of its component. Other
+   * components still try each of their faces. Default: every face of every component is tried, in
+   * index order, and the first that works is taken.
+   */
+  outerFace?: number | null | undefined
+}
+
+export type UpwardEmbeddedResult =
+  | {ok: true; upward: UpwardEmbedding}
+  /** G has a directed cycle (or a self-loop), so no drawing of it points up. */
+  | {ok: false; reason: 'cyclic'; cycle: Cycle}
+  /** The rotation at `vertex` interleaves incoming and outgoing edges. */
+  | {ok: false; reason: 'not-bimodal'; vertex: number}
+  /** No outer face of this component admits the large-angle assignment; `component` lists its vertices. */
+  | {ok: false; reason: 'no-assignment'; component: number[]}
+
+/**
+ * Throws RangeError when `emb` is not a planar rotation system of its graph (a caller's bug, not a
+ * property of the diagram), or when options.outerFace is not a face index.
+ */
+export function testUpwardEmbedded(
+  emb: RotationSystem,
+  options?: Readonly<UpwardEmbeddedOptions> | null
+): UpwardEmbeddedResult {
+  const g = emb.graph
+  const valid = verifyPlanarEmbedding(emb)
+  if (!valid.ok) throw new RangeError(`testUpwardEmbedded needs a planar rotation system: ${valid.reason}`)
+  const acyclic = findCycle(g)
+  if (!acyclic.acyclic) return {ok: false, reason: 'cyclic', cycle: acyclic.cycle}
+  const bimodal = isBimodal(emb)
+  if (!bimodal.ok) return {ok: false, reason: 'not-bimodal', vertex: bimodal.vertex}
+
+  const n = g.vertexCount
+  const faces = traceFaces(emb)
+  const next = nextDarts(emb)
+  const faceCount = faces.darts.length
+  const fixedOuter = options?.outerFace ?? -1
+  if (fixedOuter !== -1 && !(Number.isInteger(fixedOuter) && fixedOuter >= 0 && fixedOuter < faceCount)) {
+    throw new RangeError(`outerFace ${fixedOuter} is not a face index (0..${faceCount - 1})`)
+  }
+
+  // Switch angles per face; the angle named by dart d (entering v) is a switch when d's edge and
+  // next[d]'s edge both point into v (d forward, next[d] backward) or both out of v.
+  const switches = new Int32Array(faceCount)
+  for (let f = 0; f < faceCount; f++) {
+    let c = 0
+    for (const d of faces.darts[f]!) if ((d & 1) !== (next[d]! & 1)) c++
+    switches[f] = c
+  }
+
+  const component = components(g)
+  const facesOf: number[][] = []
+  for (let f = 0; f < faceCount; f++) {
+    const c = component[dartHead(g, faces.darts[f]![0]!)]!
+    while (facesOf.length <= c) facesOf.push([])
+    facesOf[c]!.push(f)
+  }
+  const verticesOf: number[][] = facesOf.map(() => [])
+  for (let v = 0; v < n; v++) if (component[v]! >= 0) verticesOf[component[v]!]!.push(v)
+
+  const assignedFace = new Int32Array(n).fill(-1)
+  const outerFaces = new Int32Array(facesOf.length)
+  for (let c = 0; c < facesOf.length; c++) {
+    const outer = solveComponent(g, emb, faces.faceOfDart, switches, verticesOf[c]!, facesOf[c]!, fixedOuter, assignedFace)
+    if (outer === -1) return {ok: false, reason: 'no-assignment', component: verticesOf[c]!}
+    outerFaces[c] = outer
+  }
+
+  // Name each large angle by the first dart of its face's walk that enters the vertex.
+  const largeAngle = new Int32Array(n).fill(-1)
+  for (let f = 0; f < faceCount; f++) {
+    for (const d of faces.darts[f]!) {
+      const v = dartHead(g, d)
+      if (assignedFace[v] === f && largeAngle[v] === -1) largeAngle[v] = d
+    }
+  }
+  return {
+    ok: true,
+    upward: {embedding: emb, faces, outerFace: outerFaces.length > 0 ? outerFaces[0]! : -1, outerFaces, largeAngle}
+  }
+}
+
+/** Component id per vertex (by lowest vertex id), -1 for isolated vertices. */
+function components(g: Digraph): Int32Array {
+  const n = g.vertexCount
+  const comp = new Int32Array(n).fill(-1)
+  const stack = new Int32Array(n)
+  let count = 0
+  for (let r = 0; r < n; r++) {
+    if (comp[r] !== -1) continue
+    if (g.outStart[r + 1] === g.outStart[r] && g.inStart[r + 1] === g.inStart[r]) continue
+    let top = 0
+    stack[top++] = r
+    comp[r] = count
+    while (top > 0) {
+      const v = stack[--top]!
+      for (let i = g.outStart[v]!; i < g.outStart[v + 1]!; i++) {
+        const w = g.head[g.outEdges[i]!]!
+        if (comp[w] === -1) {
+          comp[w] = count
+          stack[top++] = w
+        }
+      }
+      for (let i = g.inStart[v]!; i < g.inStart[v + 1]!; i++) {
+        const w = g.tail[g.inEdges[i]!]!
+        if (comp[w] === -1) {
+          comp[w] = count
+          stack[top++] = w
+        }
+      }
+    }
+    count++
+  }
+  return comp
+}
+
+/**
+ * Solves one component; writes the chosen face of each of its sources and sinks into assignedFace
+ * and returns the outer face, or -1 when no face works.
+ */
+function solveComponent(
+  g: Digraph,
+  emb: RotationSystem,
+  faceOfDart: Int32Array,
+  switches: Int32Array,
+  vertices: number[],
+  compFaces: number[],
+  fixedOuter: number,
+  assignedFace: Int32Array
+): number {
+  // Nodes: 0 = source, 1 = sink, then this component's sources/sinks, then its faces.
+  const extremes = vertices.filter((v) => g.outStart[v + 1] === g.outStart[v] || g.inStart[v + 1] === g.inStart[v])
+  const k = extremes.length
+  const faceNode = new Map<number, number>()
+  compFaces.forEach((f, i) => faceNode.set(f, 2 + k + i))
+  const b = new FlowNetworkBuilder(2 + k + compFaces.length)
+  for (let i = 0; i < k; i++) {
+    const v = extremes[i]!
+    b.addArc(0, 2 + i, 1)
+    const seen = new Set<number>()
+    const rot = emb.rotation[v]!
+    for (let j = 0; j < rot.length; j++) {
+      // The dart entering v along rot[j] names the angle after rot[j]; every angle of a source or
+      // sink is a switch.
+      const e = rot[j]!
+      const dIn = g.head[e] === v ? 2 * e : 2 * e + 1
+      const f = faceOfDart[dIn]!
+      if (seen.has(f)) continue
+      seen.add(f)
+      b.addArc(2 + i, faceNode.get(f)!, 1)
+    }
+  }
+  const sinkArc = new Map<number, number>()
+  for (const f of compFaces) {
+    const cap = switches[f]! / 2 - 1
+    // cap < 0 only for a face without switches, i.e. bounded by a directed cycle (excluded earlier).
+    if (cap < 0) return -1
+    sinkArc.set(f, b.addArc(faceNode.get(f)!, 1, cap))
+  }
+  const base = b.build()
+  const baseFlow = maxFlow(base, 0, 1)
+  if (baseFlow < k - 2) return -1
+  const candidates = fixedOuter !== -1 && faceNode.has(fixedOuter) ? [fixedOuter] : compFaces
+  for (const f0 of candidates) {
+    const net: FlowNetwork = copyFlowNetwork(base)
+    net.residual[sinkArc.get(f0)!]! += 2
+    if (baseFlow + maxFlow(net, 0, 1, k - baseFlow) !== k) continue
+    for (let i = 0; i < k; i++) {
+      const node = 2 + i
+      for (let p = net.start[node]!; p < net.start[node + 1]!; p++) {
+        const a = net.arcs[p]!
+        // Forward arcs to faces (even ids) carrying flow have no residual left.
+        if ((a & 1) === 0 && net.to[a]! >= 2 + k && net.residual[a] === 0) {
+          assignedFace[extremes[i]!] = compFaces[net.to[a]! - 2 - k]!
+        }
+      }
+    }
+    return f0
+  }
+  return -1
+}
