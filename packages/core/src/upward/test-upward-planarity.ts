@@ -1,0 +1,205 @@
+/**
+ * Exact upward-planarity test for any acyclic digraph, with an upward embedding for "yes" and a
+ * time budget after which the answer is `undecided`, never a guess.
+ *
+ * Plan (each step sound on its own; lemmas in reduce.ts and below):
+ * 1. Planarity of the whole graph (left-right test, linear): nonplanar means not upward.
+ * 2. Per weakly connected component (a graph is upward planar iff each component is; components can
+ *    stand side by side): reduce leaves, subdivision vertices and parallel paths (reduce.ts).
+ * 3. On the reduced core:
+ *    - no edges left: upward (the component was a tree-like piece that grows back around a vertex);
+ *    - one source s and one sink t: upward iff core + (s, t) is planar (Di Battista & Tamassia,
+ *      "Algorithms for plane representations of acyclic digraphs", TCS 61, 1988; s and t must share
+ *      a face); the embedding of core + (s, t) minus that edge is the upward embedding;
+ *    - every vertex a source or a sink: planar suffices (Di Battista, Liu & Rival, IPL 36, 1990), and
+ *      the planarity embedding is checked with the face-assignment condition before it is used;
+ *    - otherwise: first the planarity test's own embedding is tried with the face-assignment
+ *      condition (cheap, often enough), then the exact branch and bound over all planar embeddings
+ *      (embedding-search.ts). When that finds nothing, a second search without the assignment bound
+ *      tells "no bimodal embedding at all" from "bimodal embeddings, none upward".
+ * 4. The core's embedding is grown back through the reductions (grow-back.ts) and handed to the
+ *    fixed-embedding test (fixed-embedding.ts), which returns the UpwardEmbedding of the input graph.
+ * Only the search in 3 is exponential (the problem is NP-complete, Garg & Tamassia 2001); all else is
+ * linear, or O(F·m) for the assignment over all outer faces.
+ */
+import {createDigraph, type Digraph} from '../graph/digraph.ts'
+import type {RotationSystem} from '../embedding/rotation-system.ts'
+import {traceFaces} from '../embedding/rotation-system.ts'
+import {testPlanarity} from '../planarity/test-planarity.ts'
+import {reduceComponent, type Reduction} from './reduce.ts'
+import {growBack, type AngleEmbedding} from './grow-back.ts'
+import {assignLargeAngles} from './large-angle-assignment.ts'
+import {searchUpwardEmbedding} from './embedding-search.ts'
+import {testUpwardEmbedded} from './fixed-embedding.ts'
+import type {UpwardEmbedding} from './upward-embedding.ts'
+
+export interface UpwardBudget {
+  /** Wall-clock limit for one test, in milliseconds. Default 3000. */
+  maxMillis: number
+  /** Clock in milliseconds. Default performance.now. */
+  now?: () => number
+}
+
+/**
+ * Which path decided: 'planarity' (the graph is not planar), 'reduced' (every component reduced to
+ * nothing), 'st', 'sources-sinks', 'first-embedding' (the planarity embedding was already upward),
+ * 'search' (branch and bound). With several components, the costliest path taken is named.
+ */
+export type UpwardMethod = 'planarity' | 'reduced' | 'st' | 'sources-sinks' | 'first-embedding' | 'search'
+
+export type UpwardTestResult =
+  | {status: 'upward'; upward: UpwardEmbedding; method: UpwardMethod; searchNodes: number}
+  | {
+      status: 'not-upward'
+      reason: 'nonplanar' | 'not-bimodal' | 'no-upward-embedding'
+      method: UpwardMethod
+      searchNodes: number
+    }
+  | {status: 'undecided'; reason: 'budget'; searchNodes: number}
+
+const methodRank: readonly UpwardMethod[] = ['reduced', 'st', 'sources-sinks', 'first-embedding', 'search', 'planarity']
+
+export function testUpwardPlanarity(g: Digraph, budget?: Readonly<UpwardBudget>): UpwardTestResult {
+  const now = budget?.now ?? (() => performance.now())
+  const deadline = now() + (budget?.maxMillis ?? 3000)
+  const expired = () => now() > deadline
+  let searchNodes = 0
+
+  const planar = testPlanarity(g)
+  if (!planar.planar) return {status: 'not-upward', reason: 'nonplanar', method: 'planarity', searchNodes}
+
+  const n = g.vertexCount
+  const rot: number[][] = Array.from({length: n}, () => [])
+  const large = new Int32Array(n).fill(-1)
+  let method: UpwardMethod = 'reduced'
+  const raise = (m: UpwardMethod) => {
+    if (methodRank.indexOf(m) > methodRank.indexOf(method)) method = m
+  }
+  let firstOuter = -1 // outer vertex of the component holding the lowest vertex with an edge
+
+  for (const comp of weakComponents(g)) {
+    if (expired()) return {status: 'undecided', reason: 'budget', searchNodes}
+    const red = reduceComponent(g, comp)
+    const core = decideCore(red, expired)
+    searchNodes += core.nodes
+    if (core.kind === 'budget') return {status: 'undecided', reason: 'budget', searchNodes}
+    raise(core.method)
+    if (core.kind === 'no') return {status: 'not-upward', reason: core.reason, method, searchNodes}
+    // lift the core's embedding to working edge ids and grow it back
+    const emb: AngleEmbedding = {rot, large, outerVertex: -1}
+    core.rot.forEach((r, i) => {
+      const v = red.coreVertices[i]!
+      rot[v] = r.map((e) => red.coreEdges[e]!)
+      large[v] = core.large[i]!
+    })
+    emb.outerVertex = core.outerVertex === -1 ? -1 : red.coreVertices[core.outerVertex]!
+    growBack(red, emb)
+    if (firstOuter === -1 && g.edgeCount > 0 && comp.some((v) => rot[v]!.length > 0)) firstOuter = emb.outerVertex
+  }
+
+  const rotation: Int32Array[] = rot.map((r) => Int32Array.from(r))
+  const embedding: RotationSystem = {graph: g, rotation}
+  let outerFace: number | null = null
+  if (firstOuter !== -1) {
+    const faces = traceFaces(embedding)
+    const r = rotation[firstOuter]!
+    const e = r[large[firstOuter]!]!
+    outerFace = faces.faceOfDart[g.head[e] === firstOuter ? 2 * e : 2 * e + 1]!
+  }
+  const fixed = testUpwardEmbedded(embedding, {outerFace})
+  if (!fixed.ok) throw new Error(`internal: grown-back embedding rejected by the fixed-embedding test (${fixed.reason})`)
+  return {status: 'upward', upward: fixed.upward, method, searchNodes}
+}
+
+type CoreDecision =
+  | {kind: 'yes'; method: UpwardMethod; rot: number[][]; large: Int32Array; outerVertex: number; nodes: number}
+  | {kind: 'no'; method: UpwardMethod; reason: 'not-bimodal' | 'no-upward-embedding'; nodes: number}
+  | {kind: 'budget'; nodes: number}
+
+/** Decide a reduced core; rotations use core-local vertex and edge ids. */
+function decideCore(red: Reduction, expired: () => boolean): CoreDecision {
+  const k = red.coreVertices.length
+  const local = new Map<number, number>()
+  red.coreVertices.forEach((v, i) => local.set(v, i))
+  const tail = red.coreEdges.map((e) => local.get(red.tail[e]!)!)
+  const head = red.coreEdges.map((e) => local.get(red.head[e]!)!)
+  const m = tail.length
+  if (m === 0) {
+    return {kind: 'yes', method: 'reduced', rot: Array.from({length: k}, () => []), large: new Int32Array(k).fill(-1), outerVertex: -1, nodes: 0}
+  }
+  const indeg = new Int32Array(k), outdeg = new Int32Array(k)
+  for (let e = 0; e < m; e++) {
+    outdeg[tail[e]!]!++
+    indeg[head[e]!]!++
+  }
+  const sources: number[] = [], sinks: number[] = []
+  let mixed = 0
+  for (let v = 0; v < k; v++) {
+    if (indeg[v] === 0) sources.push(v)
+    else if (outdeg[v] === 0) sinks.push(v)
+    else mixed++
+  }
+  const pairs = tail.map((t, e): [number, number] => [t, head[e]!])
+  const tryEmbedding = (emb: RotationSystem, drop: number) => {
+    const r = Array.from(emb.rotation, (x) => Array.from(x).filter((e) => e !== drop))
+    const angles = assignLargeAngles(r, tail, head)
+    return angles === null ? null : {rot: r, angles}
+  }
+
+  if (sources.length === 1 && sinks.length === 1) {
+    const s = sources[0]!, t = sinks[0]!
+    const withST = testPlanarity(createDigraph(k, [...pairs, [s, t]]))
+    if (!withST.planar) return {kind: 'no', method: 'st', reason: 'no-upward-embedding', nodes: 0}
+    const found = tryEmbedding(withST.embedding, m)
+    if (found !== null) return {kind: 'yes', method: 'st', rot: found.rot, large: found.angles.large, outerVertex: found.angles.outerVertex, nodes: 0}
+  } else {
+    const plain = testPlanarity(createDigraph(k, pairs))
+    if (plain.planar) {
+      const found = tryEmbedding(plain.embedding, -1)
+      const method: UpwardMethod = mixed === 0 ? 'sources-sinks' : 'first-embedding'
+      if (found !== null) return {kind: 'yes', method, rot: found.rot, large: found.angles.large, outerVertex: found.angles.outerVertex, nodes: 0}
+    }
+  }
+
+  const out = searchUpwardEmbedding(k, tail, head, 'upward', expired)
+  if (out.found === 'budget') return {kind: 'budget', nodes: out.nodes}
+  if (out.found) {
+    return {kind: 'yes', method: 'search', rot: out.rot, large: out.angles.large, outerVertex: out.angles.outerVertex, nodes: out.nodes}
+  }
+  const bimodal = searchUpwardEmbedding(k, tail, head, 'bimodal', expired)
+  const nodes = out.nodes + bimodal.nodes
+  // without time to tell the two apart, the weaker reason is still true
+  const reason = bimodal.found === false ? 'not-bimodal' : 'no-upward-embedding'
+  return {kind: 'no', method: 'search', reason, nodes}
+}
+
+/** Vertex lists of the weakly connected components, each sorted, in order of lowest vertex. */
+export function weakComponents(g: Digraph): number[][] {
+  const n = g.vertexCount
+  const seen = new Uint8Array(n)
+  const out: number[][] = []
+  for (let r = 0; r < n; r++) {
+    if (seen[r]) continue
+    seen[r] = 1
+    const comp = [r]
+    for (let i = 0; i < comp.length; i++) {
+      const v = comp[i]!
+      for (let j = g.outStart[v]!; j < g.outStart[v + 1]!; j++) {
+        const w = g.head[g.outEdges[j]!]!
+        if (!seen[w]) {
+          seen[w] = 1
+          comp.push(w)
+        }
+      }
+      for (let j = g.inStart[v]!; j < g.inStart[v + 1]!; j++) {
+        const w = g.tail[g.inEdges[j]!]!
+        if (!seen[w]) {
+          seen[w] = 1
+          comp.push(w)
+        }
+      }
+    }
+    out.push(comp.sort((x, y) => x - y))
+  }
+  return out
+}
