@@ -1,0 +1,7 @@
+export type {Options, RenderInput, RenderLayout, RenderResult} from './render-svg.ts'
+export {renderSvg, toHast} from './render-svg.ts'
+export type {Palette, Theme} from './theme.ts'
+export {CLASS, DARK_PALETTE, LIGHT_PALETTE} from './theme.ts'
+export type {EdgeStyle} from './geometry.ts'
+export {DEFAULT_EDGE_STYLE} from './geometry.ts'
+export {DEFAULT_PRECISION} from './number.ts'

@@ -1,0 +1,265 @@
+/**
+ * Layout → SVG, in three steps that each run once, in linear time in the size of the drawing:
+ *  1. build a hast tree (hastscript), every number written by formatNumber at one precision;
+ *  2. serialize it (hast-util-to-html) and optimize the text with svgo at that same precision, with
+ *     the passes that would break accessibility or theming turned off;
+ *  3. parse svgo's output back into hast (hast-util-from-html, positions dropped) and serialize that.
+ * So the returned `hast` is exactly the optimized drawing, and `svg` is exactly what rehype would
+ * print for it: a remark plugin can put the tree in the document, a CLI can write the string, and the
+ * two agree byte for byte.
+ */
+import type {Element, ElementContent, Root, RootContent} from 'hast'
+import {fromHtml} from 'hast-util-from-html'
+import {toHtml} from 'hast-util-to-html'
+import {s} from 'hastscript'
+import {optimize} from 'svgo/browser'
+import {FONT_STACK, labelBox, type LabelBoxOptions} from '@upright/core'
+import {describeHierarchy, spokenLabel, type FlowWord} from './describe.ts'
+import {DEFAULT_EDGE_STYLE, edgeShape, type EdgeStyle} from './geometry.ts'
+import {hashText} from './hash.ts'
+import {DEFAULT_PRECISION, checkPrecision, formatNumber} from './number.ts'
+import {CLASS, EDGE_STROKE_WIDTH, NODE_STROKE_WIDTH, resolveTheme, stylesheet, type Theme} from './theme.ts'
+
+/** The drawing to render. `Layout` from @upright/core has this shape. */
+export interface RenderLayout {
+  flow: FlowWord
+  width: number
+  height: number
+  nodes: ReadonlyArray<{vertex: number; x: number; y: number; width: number; height: number}>
+  edges: ReadonlyArray<{edge: number; points: ReadonlyArray<readonly [number, number]>}>
+}
+
+export interface RenderInput {
+  layout: RenderLayout
+  /** Tail and head of each edge id in `layout.edges` (a core `Digraph` fits). */
+  graph: {readonly tail: ArrayLike<number>; readonly head: ArrayLike<number>}
+  /** Label per vertex, as drawn; may hold line breaks (see labelBox in @upright/core). */
+  labels: ReadonlyArray<string>
+  /** The author's id per vertex; spoken to tell vertices with the same label apart. */
+  ids?: ReadonlyArray<string> | undefined
+  /** Accessible name (<title>). Default: "Diagram of N vertices and M edges". */
+  title?: string | undefined
+  /** Sentence read before the generated description (<desc>). */
+  description?: string | undefined
+}
+
+export interface Options {
+  /**
+   * Prefix of every id in the SVG (and the scope of its CSS). Default: `upright-` and 12 hex digits
+   * of an FNV-1a hash of the input and options, so different diagrams on one page never clash.
+   * Pass one to tell apart two copies of the same diagram on one page.
+   */
+  idPrefix?: string | undefined
+  /** Decimal places of every coordinate. Default 2 (DEFAULT_PRECISION). */
+  precision?: number | undefined
+  /** Colours and scheme; see theme.ts and the README. */
+  theme?: Readonly<Theme> | undefined
+  /** The label options the boxes were sized with (labelBox); text is placed with the same. */
+  label?: Readonly<LabelBoxOptions> | undefined
+  /** Space around the drawing inside the SVG, px. Default 12. */
+  margin?: number | undefined
+  /** Corner radius of vertex boxes, px. Default 6. */
+  nodeRadius?: number | undefined
+  /** Bend radius and arrowhead size, px. Defaults: DEFAULT_EDGE_STYLE. */
+  edge?: Readonly<Partial<EdgeStyle>> | undefined
+}
+
+export interface RenderResult {
+  /** The optimized SVG, standalone (with xmlns) and fit to inline in HTML. */
+  svg: string
+  /** The same drawing as a hast tree: a root holding one <svg> element. */
+  hast: Root
+}
+
+const ID_PREFIX = /^[A-Za-z][A-Za-z0-9_-]*$/
+
+function nonNegative(name: string, value: number | undefined, fallback: number): number {
+  const v = value ?? fallback
+  if (!(Number.isFinite(v) && v >= 0)) throw new RangeError(`${name} must be a finite number ≥ 0, got ${v}`)
+  return v
+}
+
+interface Settings {
+  prefix: string
+  precision: number
+  theme: ReturnType<typeof resolveTheme>
+  label: Readonly<LabelBoxOptions>
+  margin: number
+  nodeRadius: number
+  edge: EdgeStyle
+}
+
+function settle(input: RenderInput, options: Readonly<Options> | null | undefined): Settings {
+  const precision = checkPrecision(options?.precision ?? DEFAULT_PRECISION)
+  const theme = resolveTheme(options?.theme)
+  const label = {...options?.label}
+  const margin = nonNegative('margin', options?.margin, 12)
+  const nodeRadius = nonNegative('nodeRadius', options?.nodeRadius, 6)
+  const edge: EdgeStyle = {
+    bendRadius: nonNegative('edge.bendRadius', options?.edge?.bendRadius, DEFAULT_EDGE_STYLE.bendRadius),
+    arrowLength: nonNegative('edge.arrowLength', options?.edge?.arrowLength, DEFAULT_EDGE_STYLE.arrowLength),
+    arrowWidth: nonNegative('edge.arrowWidth', options?.edge?.arrowWidth, DEFAULT_EDGE_STYLE.arrowWidth)
+  }
+  let prefix = options?.idPrefix
+  if (prefix === undefined) {
+    prefix = `upright-${hashText(fingerprint(input, {precision, theme, label, margin, nodeRadius, edge})).slice(0, 12)}`
+  } else if (!ID_PREFIX.test(prefix)) {
+    throw new RangeError(`idPrefix must start with a letter and hold only letters, digits, _ and -, got ${JSON.stringify(prefix)}`)
+  }
+  return {prefix, precision, theme, label, margin, nodeRadius, edge}
+}
+
+/** Everything that changes the output, as one string (JSON keeps key order and number text fixed). */
+function fingerprint(input: RenderInput, settings: Omit<Settings, 'prefix'>): string {
+  const {layout, graph} = input
+  return JSON.stringify([
+    layout.flow,
+    layout.width,
+    layout.height,
+    layout.nodes.map((n) => [n.vertex, n.x, n.y, n.width, n.height]),
+    layout.edges.map((e) => [e.edge, graph.tail[e.edge], graph.head[e.edge], e.points]),
+    input.labels,
+    input.ids ?? null,
+    input.title ?? null,
+    input.description ?? null,
+    settings
+  ])
+}
+
+function buildTree(input: RenderInput, settings: Settings): Root {
+  const {layout, graph} = input
+  const {prefix, precision, margin} = settings
+  const f = (v: number): string => formatNumber(v, precision)
+  const light = settings.theme.scheme === 'dark' ? settings.theme.dark : settings.theme.light
+
+  for (const e of layout.edges) {
+    if (!(e.edge >= 0 && e.edge < graph.tail.length && e.edge < graph.head.length)) {
+      throw new RangeError(`layout edge ${e.edge} is not an edge of the graph`)
+    }
+  }
+  const nodes = [...layout.nodes].sort((a, b) => a.vertex - b.vertex)
+  const edges = [...layout.edges].sort((a, b) => a.edge - b.edge)
+  const pairs = edges.map((e) => [graph.tail[e.edge]!, graph.head[e.edge]!] as const)
+
+  const title = input.title ?? `Diagram of ${nodes.length} ${nodes.length === 1 ? 'vertex' : 'vertices'} and ${edges.length} ${edges.length === 1 ? 'edge' : 'edges'}`
+  const generated = describeHierarchy({
+    flow: layout.flow,
+    vertices: nodes.map((n) => n.vertex),
+    edges: pairs,
+    labels: input.labels,
+    ids: input.ids
+  })
+  const lead = input.description?.trim()
+  const desc = lead ? `${lead}${/[.!?]$/.test(lead) ? '' : '.'} ${generated}` : generated
+
+  const lines: Element[] = []
+  const arrows: Element[] = []
+  for (const e of edges) {
+    const shape = edgeShape(e.points, settings.edge, precision)
+    if (shape.line) lines.push(s('path', {d: shape.line}))
+    if (shape.arrow) arrows.push(s('path', {d: shape.arrow}))
+  }
+
+  const boxes: Element[] = []
+  const labels: Element[] = []
+  for (const n of nodes) {
+    boxes.push(
+      s('rect', {
+        x: f(n.x - n.width / 2),
+        y: f(n.y - n.height / 2),
+        width: f(n.width),
+        height: f(n.height),
+        rx: f(Math.min(settings.nodeRadius, n.width / 2, n.height / 2))
+      })
+    )
+    const box = labelBox(input.labels[n.vertex] ?? '', settings.label)
+    const spans: ElementContent[] = []
+    box.lines.forEach((line, i) => {
+      if (line !== '') spans.push(s('tspan', {x: f(n.x), y: f(n.y + box.baselines[i]!)}, line))
+    })
+    if (spans.length === 1) {
+      const only = spans[0] as Element
+      labels.push(s('text', {x: only.properties['x'], y: only.properties['y']}, only.children))
+    } else if (spans.length > 1) {
+      labels.push(s('text', spans))
+    }
+  }
+
+  const fontSize = labelBox('', settings.label).fontSize
+  const width = layout.width + 2 * margin
+  const height = layout.height + 2 * margin
+  const svg = s(
+    'svg',
+    {
+      xmlns: 'http://www.w3.org/2000/svg',
+      id: prefix,
+      className: [CLASS.root],
+      viewBox: `${f(-margin)} ${f(-margin)} ${f(width)} ${f(height)}`,
+      width: f(width),
+      height: f(height),
+      role: 'img',
+      ariaLabelledBy: `${prefix}-title`,
+      ariaDescribedBy: `${prefix}-desc`
+    },
+    [
+      s('title', {id: `${prefix}-title`}, title),
+      s('desc', {id: `${prefix}-desc`}, desc),
+      s('style', stylesheet(prefix, settings.theme)),
+      s('rect', {
+        className: [CLASS.background],
+        x: f(-margin),
+        y: f(-margin),
+        width: f(width),
+        height: f(height),
+        rx: f(Math.min(8, margin)),
+        fill: light.background
+      }),
+      s('g', {className: [CLASS.lines], fill: 'none', stroke: light.edgeStroke, strokeWidth: EDGE_STROKE_WIDTH, strokeLinecap: 'round', strokeLinejoin: 'round'}, lines),
+      s('g', {className: [CLASS.boxes], fill: light.nodeFill, stroke: light.nodeStroke, strokeWidth: NODE_STROKE_WIDTH}, boxes),
+      s('g', {className: [CLASS.labels], fill: light.nodeText, fontFamily: FONT_STACK, fontSize: f(fontSize), textAnchor: 'middle'}, labels),
+      s('g', {className: [CLASS.arrows], fill: light.arrowFill}, arrows)
+    ]
+  )
+  return {type: 'root', children: [svg]}
+}
+
+/** Drop unist positions so the tree depends only on the SVG text (and compares equal across runs). */
+function dropPositions(node: Root | RootContent): void {
+  delete node.position
+  if ('children' in node) for (const child of node.children) dropPositions(child)
+}
+
+/** Render a layout as optimized, accessible, themable SVG: the string and the same tree as hast. */
+export function renderSvg(input: RenderInput, options?: Readonly<Options> | null): RenderResult {
+  const settings = settle(input, options)
+  const raw = toHtml(buildTree(input, settings), {space: 'svg'})
+  const optimized = optimize(raw, {
+    multipass: false,
+    floatPrecision: settings.precision,
+    js2svg: {pretty: false},
+    plugins: [
+      {
+        name: 'preset-default',
+        params: {
+          overrides: {
+            // Ids are already short, scoped by the prefix and referenced from aria-* and the CSS.
+            cleanupIds: false,
+            // Keep every rule in <style>: inlined rules would lose the media queries and the site's
+            // custom properties could no longer reach them.
+            inlineStyles: false,
+            // role="img" is what makes assistive technology read <title> and <desc> as one image.
+            removeUnknownsAndDefaults: {keepRoleAttr: true, keepAriaAttrs: true}
+          }
+        }
+      }
+    ]
+  }).data
+  const hast = fromHtml(optimized, {fragment: true})
+  dropPositions(hast)
+  return {svg: toHtml(hast, {closeEmptyElements: true}), hast}
+}
+
+/** The optimized drawing as a hast tree (a root holding one <svg>), e.g. for a remark/rehype plugin. */
+export function toHast(input: RenderInput, options?: Readonly<Options> | null): Root {
+  return renderSvg(input, options).hast
+}
