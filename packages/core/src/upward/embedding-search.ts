@@ -25,7 +25,8 @@ import {assignLargeAngles, type LargeAngles} from './large-angle-assignment.ts'
 
 export type SearchOutcome =
   | {found: true; rot: number[][]; angles: LargeAngles; nodes: number}
-  | {found: false; nodes: number}
+  /** `assignmentPruned`: whether the face-assignment bound ever cut; if not, no bimodal embedding exists. */
+  | {found: false; nodes: number; assignmentPruned: boolean}
   | {found: 'budget'; nodes: number}
 
 /** 'upward' prunes with the full fixed-embedding test; 'bimodal' only asks for a bimodal embedding. */
@@ -189,18 +190,24 @@ export function searchUpwardEmbedding(
     return {path: [a, x], edges: [e0], ear: false} // x hangs on a by a bridge
   }
 
+  let assignmentPruned = false
   const bound = (touched: number[]): boolean => {
     for (const v of touched) if (changes(rot[v]!, v) > 2) return false
-    return goal === 'bimodal' || assignLargeAngles(rot, tail, head) !== null
+    if (goal === 'bimodal' || assignLargeAngles(rot, tail, head) !== null) return true
+    assignmentPruned = true
+    return false
   }
 
   let result: {rot: number[][]; angles: LargeAngles} | null = null
-  const go = (): boolean => {
+  const go = (depth: number): boolean => {
     nodes++
     if (expired()) throw outOfTime
     if (placedEdges === m) {
       const angles = goal === 'upward' ? assignLargeAngles(rot, tail, head) : {large: new Int32Array(n).fill(-1), outerVertex: -1}
-      if (angles === null) return false
+      if (angles === null) {
+        assignmentPruned = true
+        return false
+      }
       result = {rot: rot.map((r) => r.slice()), angles}
       return true
     }
@@ -215,6 +222,10 @@ export function searchUpwardEmbedding(
         bestFaces = list
       }
     }
+    // Mirror symmetry: reversing every rotation maps upward embeddings to upward embeddings. When the
+    // placed part is a single cycle (right after the first step), its two faces are mirror images,
+    // so one of them suffices.
+    if (depth === 1 && faces === 2) bestFaces = bestFaces.slice(0, 1)
     const {path, edges, ear} = pathIn(best!)
     const a = path[0]!, b = path[path.length - 1]!
     const first = edges[0]!, last = edges[edges.length - 1]!
@@ -230,7 +241,7 @@ export function searchUpwardEmbedding(
     }
     const attempt = (): boolean => {
       place(true)
-      const ok = bound(ear ? [a, b] : [a]) && go()
+      const ok = bound(ear ? [a, b] : [a]) && go(depth + 1)
       place(false)
       return ok
     }
@@ -300,11 +311,11 @@ export function searchUpwardEmbedding(
   try {
     if (n === 0) return {found: true, rot, angles: {large: new Int32Array(0), outerVertex: -1}, nodes}
     placedV[0] = 1
-    if (go()) {
+    if (go(0)) {
       const r = result as unknown as {rot: number[][]; angles: LargeAngles}
       return {found: true, rot: r.rot, angles: r.angles, nodes}
     }
-    return {found: false, nodes}
+    return {found: false, nodes, assignmentPruned}
   } catch (err) {
     if (err === outOfTime) return {found: 'budget', nodes}
     throw err

@@ -166,10 +166,17 @@ function decideCore(red: Reduction, expired: () => boolean): CoreDecision {
   if (out.found) {
     return {kind: 'yes', method: 'search', rot: out.rot, large: out.angles.large, outerVertex: out.angles.outerVertex, nodes: out.nodes}
   }
-  const bimodal = searchUpwardEmbedding(k, tail, head, 'bimodal', expired)
-  const nodes = out.nodes + bimodal.nodes
-  // without time to tell the two apart, the weaker reason is still true
-  const reason = bimodal.found === false ? 'not-bimodal' : 'no-upward-embedding'
+  // If the assignment bound never cut, the search met only non-bimodal dead ends: no bimodal
+  // embedding exists. Otherwise a bimodal-only search, capped at the same effort, may tell; when it
+  // cannot, the weaker reason is still true.
+  let reason: 'not-bimodal' | 'no-upward-embedding' = 'not-bimodal'
+  let nodes = out.nodes
+  if (out.assignmentPruned) {
+    let left = out.nodes
+    const bimodal = searchUpwardEmbedding(k, tail, head, 'bimodal', () => --left < 0 || expired())
+    nodes += bimodal.nodes
+    reason = bimodal.found === false ? 'not-bimodal' : 'no-upward-embedding'
+  }
   return {kind: 'no', method: 'search', reason, nodes}
 }
 

@@ -1,0 +1,103 @@
+/**
+ * `pnpm bench upward [--budget MS] [--runs K]`: the exact upward-planarity test on every North DAG
+ * (/work/shared/data/north, see its SOURCE.md), timed per graph. Prints median, p95, max and total,
+ * the same per size decade, counts per answer and per deciding method, and as a reference in the same
+ * run the linear-time planarity test on the same graphs (ratio of totals).
+ * One untimed pass warms the JIT first; each graph's time is the best of K runs (default 3).
+ */
+import {readdirSync, readFileSync} from 'node:fs'
+import {createDigraph, type Digraph} from '../packages/core/src/graph/digraph.ts'
+import {testPlanarity} from '../packages/core/src/planarity/index.ts'
+import {findMinimalObstruction, testUpwardPlanarity} from '../packages/core/src/upward/index.ts'
+
+const dir = '/work/shared/data/north'
+const arg = (name: string, dflt: number) => {
+  const i = process.argv.indexOf(name)
+  return i === -1 ? dflt : Number(process.argv[i + 1])
+}
+const budget = arg('--budget', 3000)
+const runs = arg('--runs', 3)
+
+function read(file: string): Digraph {
+  const text = readFileSync(`${dir}/${file}`, 'utf8')
+  const ids = new Map<string, number>()
+  for (const m of text.matchAll(/<node\s[^>]*\bid="([^"]+)"/g)) ids.set(m[1]!, ids.size)
+  const edges: Array<[number, number]> = []
+  for (const m of text.matchAll(/<edge\s[^>]*>/g)) {
+    const s = /\bsource="([^"]+)"/.exec(m[0])![1]!, t = /\btarget="([^"]+)"/.exec(m[0])![1]!
+    edges.push([ids.get(s)!, ids.get(t)!])
+  }
+  return createDigraph(ids.size, edges)
+}
+
+const files = readdirSync(dir).filter((f) => f.endsWith('.graphml')).sort()
+const graphs = files.map((f) => ({file: f, g: read(f)}))
+
+const time = (fn: () => unknown): number => {
+  let best = Infinity
+  for (let r = 0; r < runs; r++) {
+    const t0 = performance.now()
+    fn()
+    best = Math.min(best, performance.now() - t0)
+  }
+  return best
+}
+
+for (const {g} of graphs) testUpwardPlanarity(g, {maxMillis: budget}) // warm-up
+const rows = graphs.map(({file, g}) => {
+  const r = testUpwardPlanarity(g, {maxMillis: budget})
+  const ms = time(() => testUpwardPlanarity(g, {maxMillis: budget}))
+  const ref = time(() => testPlanarity(g))
+  const label = r.status === 'undecided' ? 'undecided' : r.status === 'upward' ? 'upward' : r.reason === 'nonplanar' ? 'nonplanar' : 'planar, not upward'
+  return {file, n: g.vertexCount, ms, ref, label, method: r.status === 'undecided' ? 'budget' : r.method}
+})
+
+const stats = (xs: number[]) => {
+  const s = [...xs].sort((a, b) => a - b)
+  const q = (p: number) => s[Math.min(s.length - 1, Math.floor(p * s.length))] ?? 0
+  return {count: s.length, median: q(0.5), p95: q(0.95), max: s[s.length - 1] ?? 0, total: s.reduce((a, b) => a + b, 0)}
+}
+const fmt = (x: number) => x.toFixed(x < 10 ? 2 : 1).padStart(8)
+const line = (name: string, xs: number[]) => {
+  const s = stats(xs)
+  return `${name.padEnd(22)} ${String(s.count).padStart(5)} ${fmt(s.median)} ${fmt(s.p95)} ${fmt(s.max)} ${fmt(s.total)}`
+}
+const header = `${'graphs (ms)'.padEnd(22)} ${'count'.padStart(5)} ${'median'.padStart(8)} ${'p95'.padStart(8)} ${'max'.padStart(8)} ${'total'.padStart(8)}`
+
+console.log(`upward planarity on ${rows.length} North DAGs, budget ${budget} ms, best of ${runs}`)
+console.log(header)
+console.log(line('all', rows.map((r) => r.ms)))
+for (const label of ['upward', 'planar, not upward', 'nonplanar', 'undecided']) {
+  const xs = rows.filter((r) => r.label === label).map((r) => r.ms)
+  if (xs.length > 0) console.log(line(label, xs))
+}
+console.log(line('planar only', rows.filter((r) => r.label !== 'nonplanar').map((r) => r.ms)))
+console.log('\nby size (vertices)')
+for (let lo = 10; lo <= 100; lo += 10) {
+  const xs = rows.filter((r) => r.n >= lo && r.n < lo + 10).map((r) => r.ms)
+  if (xs.length > 0) console.log(line(`${lo}-${lo + 9}`, xs))
+}
+console.log('\nby deciding method')
+for (const method of [...new Set(rows.map((r) => r.method))].sort()) {
+  console.log(line(method, rows.filter((r) => r.method === method).map((r) => r.ms)))
+}
+const ref = stats(rows.map((r) => r.ref)).total
+const tot = stats(rows.map((r) => r.ms)).total
+console.log(`\nreference: planarity test alone, total ${ref.toFixed(1)} ms; upward / planarity = ${(tot / ref).toFixed(2)}`)
+console.log('slowest:', [...rows].sort((a, b) => b.ms - a.ms).slice(0, 5).map((r) => `${r.file} ${r.ms.toFixed(1)} ms (${r.method})`).join(', '))
+
+// Minimal obstructions for the planar DAGs that are not upward (one run each).
+const noRows = rows.filter((r) => r.label === 'planar, not upward')
+const obs = noRows.map((r) => {
+  const g = graphs.find((x) => x.file === r.file)!.g
+  const t0 = performance.now()
+  const o = findMinimalObstruction(g, {maxMillis: 10 * budget})
+  return {ms: performance.now() - t0, size: o.ok ? o.edges.length : -1}
+})
+if (obs.length > 0) {
+  console.log(`\nminimal obstructions for the ${obs.length} planar, not upward DAGs (deletion filter)`)
+  console.log(header)
+  console.log(line('obstruction', obs.map((o) => o.ms)))
+  const sizes = obs.map((o) => o.size)
+  console.log(`edges per obstruction: min ${Math.min(...sizes)}, median ${stats(sizes).median}, max ${Math.max(...sizes)}; failed: ${sizes.filter((s) => s < 0).length}`)
+}
