@@ -1,0 +1,312 @@
+/**
+ * Upward, crossing-free polyline drawing of a graph G from a planar st-graph H ⊇ G with its embedding.
+ *
+ * Pipeline (a layered drawing in the manner of Sugiyama, Tagawa, Toda, IEEE SMC 11, 1981, with the
+ * crossing-minimisation step replaced by the embedding, which makes it exact):
+ * 1. Layers of H (layering.ts): every edge of H points to a higher layer; only G's edges count towards
+ *    the span that is minimised.
+ * 2. Every G edge spanning several layers gets a bend object on each layer in between; H's added
+ *    vertices and edges are dropped from here on (they have shaped the layers and the orders).
+ * 3. Per-layer order from the visibility representation of H (dual-order.ts), so consecutive layers
+ *    are joined by segments whose orders agree at both ends: no two edges cross, for every input.
+ * 4. Cross-flow coordinates (coordinates.ts) keep those orders and the separations.
+ * 5. Routing: layers are bands as tall as their tallest box, boxes centred in the band. An edge leaves
+ *    its tail box on the side facing the flow at a port (ports spread in embedding order, centred), goes
+ *    straight along the flow to the band's edge when the box is shorter than the band, crosses the gap
+ *    straight to the next layer, runs straight through a bend band, and enters its head box the same way.
+ *    Collinear points are dropped, so an edge is straight wherever its ports and bends line up.
+ * 6. The internal drawing (u across, v along the flow) is turned into SVG coordinates for the flow.
+ *
+ * Why no crossings: inside a band each object keeps to its own cross-flow interval (its box, or its
+ * bend line), and these intervals are disjoint; between two bands every segment runs from the upper
+ * line of one band to the lower line of the next, and the points on both lines are strictly increasing
+ * in the same (visibility) order, so two such segments cannot meet. Why upward: every segment strictly
+ * increases v (bands have non-negative height, gaps positive).
+ *
+ * Time: O((n + m + B) log(n + m + B)) for B bend objects (one sort of each layer), plus the linear
+ * passes of layering.ts and coordinates.ts. B is at most m times the number of layers, typically a
+ * small multiple of m.
+ */
+import type {Digraph} from '../graph/digraph.ts'
+import {layerByWeightedSpan} from './layering.ts'
+import {dualOrder} from './dual-order.ts'
+import {assignCoordinates, type LayeredGraph} from './coordinates.ts'
+import {defaultSpacing, type Flow, type Layout, type LayoutInput, type Spacing} from './types.ts'
+
+/** Smallest gap accepted, so separations stay positive whatever the caller passes. */
+const MIN_GAP = 1
+/** Segment weights by number of bend ends (0, 1, 2), see coordinates.ts. */
+const SEGMENT_WEIGHT = [1, 2, 8] as const
+
+export function layoutUpward(input: LayoutInput): Layout {
+  const {graph: g, st, boxes, flow} = input
+  const h = st.graph
+  const n = g.vertexCount
+  const m = g.edgeCount
+  checkInput(g, h, boxes.length)
+  const spacing: Spacing = {
+    layer: Math.max(MIN_GAP, input.spacing?.layer ?? defaultSpacing.layer),
+    node: Math.max(MIN_GAP, input.spacing?.node ?? defaultSpacing.node),
+    edge: Math.max(MIN_GAP, input.spacing?.edge ?? defaultSpacing.edge),
+  }
+  if (n === 0) return {flow, width: 0, height: 0, nodes: [], edges: []}
+
+  // Box extents in internal coordinates: u across the flow, v along it.
+  const sideways = flow === 'left' || flow === 'right'
+  const halfU = new Float64Array(n)
+  const halfV = new Float64Array(n)
+  for (let v = 0; v < n; v++) {
+    const b = boxes[v]!
+    halfU[v] = (sideways ? b.height : b.width) / 2
+    halfV[v] = (sideways ? b.width : b.height) / 2
+  }
+
+  // 1. Layers of H, then keep only the layers G uses.
+  const {rank} = layerByWeightedSpan(h, (e) => (e < m ? 1 : 0))
+  let maxRank = 0
+  for (let v = 0; v < h.vertexCount; v++) if (rank[v]! > maxRank) maxRank = rank[v]!
+  const used = new Uint8Array(maxRank + 2)
+  for (let v = 0; v < n; v++) used[rank[v]!] = 1
+  for (let e = 0; e < m; e++) for (let r = rank[g.tail[e]!]! + 1; r < rank[g.head[e]!]!; r++) used[r] = 1
+  const layerOfRank = new Int32Array(maxRank + 1)
+  let layerCount = 0
+  for (let r = 0; r <= maxRank; r++) layerOfRank[r] = used[r] ? layerCount++ : -1
+
+  // 2. Objects: G's vertices 0..n-1, then each edge's bends bottom to top.
+  const {edgeKey, vertexKey} = dualOrder(st.embedding, st.faces, st.outerFace)
+  const bendStart = new Int32Array(m + 1)
+  let objectCount = n
+  for (let e = 0; e < m; e++) {
+    bendStart[e] = objectCount
+    objectCount += layerOfRank[rank[g.head[e]!]!]! - layerOfRank[rank[g.tail[e]!]!]! - 1
+  }
+  bendStart[m] = objectCount
+  const layerOf = new Int32Array(objectCount)
+  const key = new Int32Array(objectCount)
+  const half = new Float64Array(objectCount)
+  const isBox = new Uint8Array(objectCount)
+  for (let v = 0; v < n; v++) {
+    layerOf[v] = layerOfRank[rank[v]!]!
+    key[v] = vertexKey[v]!
+    half[v] = halfU[v]!
+    isBox[v] = 1
+  }
+  for (let e = 0; e < m; e++) {
+    const low = layerOf[g.tail[e]!]!
+    for (let o = bendStart[e]!; o < bendStart[e + 1]!; o++) {
+      layerOf[o] = low + 1 + (o - bendStart[e]!)
+      key[o] = edgeKey[e]!
+    }
+  }
+
+  // 3. Per-layer order by visibility abscissa (ties cannot occur between objects on one layer;
+  //    the id tie-break only keeps the sort total).
+  const sorted = Int32Array.from({length: objectCount}, (_, i) => i).sort(
+    (a, b) => layerOf[a]! - layerOf[b]! || key[a]! - key[b]! || a - b
+  )
+  const layers: Int32Array[] = []
+  for (let i = 0, l = 0; l < layerCount; l++) {
+    const from = i
+    while (i < objectCount && layerOf[sorted[i]!] === l) i++
+    layers.push(sorted.subarray(from, i))
+  }
+
+  // Ports: out-edges along the flow-facing side, in-edges along the opposite side, both in embedding
+  // (visibility) order, centred, at most `edge` apart and strictly inside the side.
+  const tailPort = new Float64Array(m)
+  const headPort = new Float64Array(m)
+  spreadPorts(g, halfU, edgeKey, spacing.edge, true, tailPort)
+  spreadPorts(g, halfU, edgeKey, spacing.edge, false, headPort)
+
+  // Segments along each edge's chain of objects.
+  const segCount = objectCount - n + m
+  const lg: LayeredGraph = {
+    objectCount,
+    layers,
+    half,
+    isBox,
+    segLow: new Int32Array(segCount),
+    segHigh: new Int32Array(segCount),
+    segLowPort: new Float64Array(segCount),
+    segHighPort: new Float64Array(segCount),
+    segWeight: new Float64Array(segCount),
+  }
+  let s = 0
+  for (let e = 0; e < m; e++) {
+    let prev = g.tail[e]!
+    let prevPort = tailPort[e]!
+    for (let o = bendStart[e]!; o <= bendStart[e + 1]!; o++) {
+      const next = o < bendStart[e + 1]! ? o : g.head[e]!
+      const nextPort = o < bendStart[e + 1]! ? 0 : headPort[e]!
+      lg.segLow[s] = prev
+      lg.segHigh[s] = next
+      lg.segLowPort[s] = prevPort
+      lg.segHighPort[s] = nextPort
+      lg.segWeight[s] = SEGMENT_WEIGHT[(isBox[prev] ? 0 : 1) + (isBox[next] ? 0 : 1)]!
+      s++
+      prev = next
+      prevPort = nextPort
+    }
+  }
+
+  // 4. Coordinates across the flow; start from the visibility abscissae scaled to a typical step.
+  let widthSum = 0
+  for (let v = 0; v < n; v++) widthSum += 2 * halfU[v]!
+  const unit = (widthSum / n + spacing.node) / 2
+  const initial = new Float64Array(objectCount)
+  for (let o = 0; o < objectCount; o++) initial[o] = key[o]! * unit
+  const x = assignCoordinates(lg, initial, spacing.node, spacing.edge)
+
+  // 5. Bands along the flow.
+  const bandHalf = new Float64Array(layerCount)
+  for (let v = 0; v < n; v++) bandHalf[layerOf[v]!] = Math.max(bandHalf[layerOf[v]!]!, halfV[v]!)
+  const centre = new Float64Array(layerCount)
+  for (let l = 0; l < layerCount; l++) {
+    centre[l] = l === 0 ? bandHalf[0]! : centre[l - 1]! + bandHalf[l - 1]! + spacing.layer + bandHalf[l]!
+  }
+  const routes: Array<Array<[number, number]>> = []
+  for (let e = 0; e < m; e++) {
+    const t = g.tail[e]!
+    const hd = g.head[e]!
+    const lt = layerOf[t]!
+    const lh = layerOf[hd]!
+    const pts: Array<[number, number]> = []
+    const pu = x[t]! + tailPort[e]!
+    pts.push([pu, centre[lt]! + halfV[t]!])
+    if (halfV[t]! < bandHalf[lt]!) pts.push([pu, centre[lt]! + bandHalf[lt]!])
+    for (let o = bendStart[e]!; o < bendStart[e + 1]!; o++) {
+      const l = layerOf[o]!
+      if (bandHalf[l]! > 0) {
+        pts.push([x[o]!, centre[l]! - bandHalf[l]!])
+        pts.push([x[o]!, centre[l]! + bandHalf[l]!])
+      } else {
+        pts.push([x[o]!, centre[l]!])
+      }
+    }
+    const qu = x[hd]! + headPort[e]!
+    if (halfV[hd]! < bandHalf[lh]!) pts.push([qu, centre[lh]! - bandHalf[lh]!])
+    pts.push([qu, centre[lh]! - halfV[hd]!])
+    routes.push(dropStraightThrough(pts))
+  }
+
+  // 6. To SVG coordinates.
+  return orient(flow, g, x, layerOf, centre, boxes, routes)
+}
+
+function checkInput(g: Digraph, h: Digraph, boxCount: number): void {
+  if (h.vertexCount < g.vertexCount || h.edgeCount < g.edgeCount) {
+    throw new Error('layout: the st-augmentation is smaller than the graph')
+  }
+  for (let e = 0; e < g.edgeCount; e++) {
+    if (h.tail[e] !== g.tail[e] || h.head[e] !== g.head[e]) {
+      throw new Error(`layout: edge ${e} of the st-augmentation differs from the graph's`)
+    }
+  }
+  if (boxCount < g.vertexCount) throw new Error('layout: a box size is missing for some vertex')
+}
+
+function spreadPorts(
+  g: Digraph,
+  halfU: Float64Array,
+  edgeKey: Int32Array,
+  gap: number,
+  out: boolean,
+  port: Float64Array
+): void {
+  const start = out ? g.outStart : g.inStart
+  const list = out ? g.outEdges : g.inEdges
+  for (let v = 0; v < g.vertexCount; v++) {
+    const k = start[v + 1]! - start[v]!
+    if (k === 0) continue
+    const edges = Array.from(list.subarray(start[v]!, start[v + 1]!)).sort((a, b) => edgeKey[a]! - edgeKey[b]! || a - b)
+    // k ports at most `gap` apart, spanning less than the side: |offset| <= (k-1)/2 * 2h/k < h.
+    const step = Math.min(gap, (2 * halfU[v]!) / k)
+    for (let i = 0; i < k; i++) port[edges[i]!] = (i - (k - 1) / 2) * step
+  }
+}
+
+/** Drop middle points of runs along the flow (three points with the same cross coordinate). */
+function dropStraightThrough(pts: Array<[number, number]>): Array<[number, number]> {
+  const out: Array<[number, number]> = [pts[0]!]
+  for (let i = 1; i < pts.length - 1; i++) {
+    const a = out[out.length - 1]!
+    const b = pts[i]!
+    const c = pts[i + 1]!
+    if (a[0] === b[0] && b[0] === c[0]) continue
+    out.push(b)
+  }
+  out.push(pts[pts.length - 1]!)
+  return out
+}
+
+/**
+ * Internal (u, v) to SVG (x, y): up (u, -v); down (u, v); right (v, u); left (-v, u). Then translate
+ * so the drawing starts at 0. End points are recomputed from the final box so that they lie on the
+ * box's side exactly as a checker computes it (centre ± half size).
+ */
+function orient(
+  flow: Flow,
+  g: Digraph,
+  x: Float64Array,
+  layerOf: Int32Array,
+  centre: Float64Array,
+  boxes: LayoutInput['boxes'],
+  routes: Array<Array<[number, number]>>
+): Layout {
+  const map = (u: number, v: number): [number, number] =>
+    flow === 'up' ? [u, -v] : flow === 'down' ? [u, v] : flow === 'right' ? [v, u] : [-v, u]
+  const n = g.vertexCount
+  let minX = Infinity
+  let minY = Infinity
+  let maxX = -Infinity
+  let maxY = -Infinity
+  const centres: Array<[number, number]> = []
+  for (let v = 0; v < n; v++) {
+    const c = map(x[v]!, centre[layerOf[v]!]!)
+    centres.push(c)
+    const b = boxes[v]!
+    minX = Math.min(minX, c[0] - b.width / 2)
+    maxX = Math.max(maxX, c[0] + b.width / 2)
+    minY = Math.min(minY, c[1] - b.height / 2)
+    maxY = Math.max(maxY, c[1] + b.height / 2)
+  }
+  const mapped = routes.map((pts) => pts.map(([u, v]) => map(u, v)))
+  for (const pts of mapped) {
+    for (const [px, py] of pts) {
+      minX = Math.min(minX, px)
+      maxX = Math.max(maxX, px)
+      minY = Math.min(minY, py)
+      maxY = Math.max(maxY, py)
+    }
+  }
+  const nodes = centres.map(([cx, cy], v) => ({
+    vertex: v,
+    x: cx - minX,
+    y: cy - minY,
+    width: boxes[v]!.width,
+    height: boxes[v]!.height,
+  }))
+  const edges = mapped.map((pts, e) => {
+    const points = pts.map(([px, py]): [number, number] => [px - minX, py - minY])
+    const tb = nodes[g.tail[e]!]!
+    const hb = nodes[g.head[e]!]!
+    const first = points[0]!
+    const last = points[points.length - 1]!
+    // Snap the along-flow coordinate of each end onto the box side.
+    if (flow === 'up') {
+      first[1] = tb.y - tb.height / 2
+      last[1] = hb.y + hb.height / 2
+    } else if (flow === 'down') {
+      first[1] = tb.y + tb.height / 2
+      last[1] = hb.y - hb.height / 2
+    } else if (flow === 'right') {
+      first[0] = tb.x + tb.width / 2
+      last[0] = hb.x - hb.width / 2
+    } else {
+      first[0] = tb.x - tb.width / 2
+      last[0] = hb.x + hb.width / 2
+    }
+    return {edge: e, points}
+  })
+  return {flow, width: maxX - minX, height: maxY - minY, nodes, edges}
+}
