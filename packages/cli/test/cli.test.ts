@@ -74,6 +74,23 @@ describe('upright check', () => {
     expect(diagram!.messages[0]!.reason).toBe('These 9 edges form a subdivided K3,3, so no drawing of them avoids a crossing.')
   })
 
+  it('passes an upward planar diagram with exit 0', async () => {
+    const {code, stdout} = await cli(['check', 'fixtures/cli/chain.upright'])
+    expect(stdout).toBe('1 diagram in 1 file: 1 passed, 0 failed\n')
+    expect(code).toBe(0)
+  })
+
+  it('rejects the 5-vertex wheel (smallest planar non-upward DAG, shared/UPWARD-FACTS.md) with all 8 edges', async () => {
+    const {code, stdout} = await cli(['check', '--format', 'json', 'fixtures/cli/wheel.upright'])
+    expect(code).toBe(1)
+    const [diagram] = (JSON.parse(stdout) as JsonReport).diagrams
+    expect(diagram!.status).toBe('not-upward')
+    const cert = diagram!.certificate as {kind: string; edges: string[][]}
+    expect(cert.kind).toBe('obstruction')
+    expect(cert.edges).toHaveLength(8)
+    expect(diagram!.messages[0]!.ruleId).toBe('not-upward')
+  })
+
   it('exits 2 on an unreadable path and still checks the others', async () => {
     const {code, stdout, stderr} = await cli(['check', 'no/such/file.md', 'fixtures/cli/cycle.upright'])
     expect(code).toBe(2)

@@ -9,7 +9,8 @@ import {parseDiagram, type ParsedDiagram} from '../parse/index.ts'
 import type {Diagnostic} from '../source-range.ts'
 import type {Certificate, DiagramStatus} from './certificate.ts'
 import {testPlanarity} from '../planarity/index.ts'
-import {cycleFailure, kuratowskiFailure} from './failures.ts'
+import {findMinimalObstruction, testUpwardPlanarity, type UpwardEmbedding} from '../upward/index.ts'
+import {cycleFailure, kuratowskiFailure, obstructionFailure, undecidedDiagnostic} from './failures.ts'
 
 export interface CheckSettings {
   /** Milliseconds the upward test may spend on this diagram before answering `undecided`. */
@@ -28,10 +29,14 @@ export interface DiagramCheck {
   parsed: ParsedDiagram
   /** The graph, once the text parsed: vertex i is `parsed.vertices[i]`, edge j is `parsed.edges[j]`. */
   graph?: Digraph
+  /** For status `upward`: the upward embedding the drawing is built from. */
+  upward?: UpwardEmbedding
 }
 
 export function checkDiagram(text: string, settings: Readonly<CheckSettings> = {}): DiagramCheck {
-  void settings
+  const now = settings.now ?? (() => performance.now())
+  const budgetMillis = settings.budgetMillis ?? defaultBudgetMillis
+  const deadline = now() + budgetMillis
   const parsed = parseDiagram(text)
   const diagnostics = [...parsed.diagnostics]
   if (diagnostics.some((d) => d.severity === 'error')) return {status: 'syntax', diagnostics, parsed}
@@ -52,11 +57,14 @@ export function checkDiagram(text: string, settings: Readonly<CheckSettings> = {
     return {status: 'nonplanar', diagnostics: [...diagnostics, failure.diagnostic], certificate: failure.certificate, parsed, graph}
   }
 
-  diagnostics.push({
-    severity: 'error',
-    ruleId: 'check-unavailable',
-    reason: 'The diagram has no cycle and can be drawn without crossings, but the upward check is not part of this build yet, so it cannot be certified.',
-    range: parsed.vertices[0]!.range
-  })
-  return {status: 'undecided', diagnostics, parsed, graph}
+  const upward = testUpwardPlanarity(graph, {maxMillis: deadline - now(), now})
+  if (upward.status === 'upward') return {status: 'upward', diagnostics, parsed, graph, upward: upward.upward}
+  if (upward.status === 'undecided') {
+    return {status: 'undecided', diagnostics: [...diagnostics, undecidedDiagnostic(parsed, budgetMillis)], parsed, graph}
+  }
+  // Not upward: narrow it down to an edge-minimal obstruction with what is left of the budget.
+  const obstruction = findMinimalObstruction(graph, {maxMillis: Math.max(0, deadline - now()), now})
+  const edges = obstruction.ok ? obstruction.edges : [...Array(graph.edgeCount).keys()]
+  const failure = obstructionFailure(parsed, edges, obstruction.ok)
+  return {status: 'not-upward', diagnostics: [...diagnostics, failure.diagnostic], certificate: failure.certificate, parsed, graph}
 }

@@ -56,3 +56,32 @@ export function kuratowskiFailure(parsed: ParsedDiagram, k: KuratowskiSubgraph):
     }
   }
 }
+
+export function obstructionFailure(parsed: ParsedDiagram, edges: number[], minimal: boolean): Failure {
+  const userEdges = edges.map((e) => [vertexName(parsed, parsed.edges[e]!.from), vertexName(parsed, parsed.edges[e]!.to)] as [string, string])
+  const last = edges.reduce((a, b) => (parsed.edges[b]!.range.start.offset > parsed.edges[a]!.range.start.offset ? b : a))
+  const reason = minimal
+    ? `These ${plural(edges.length, 'edge')} cannot all point the same way without two of them crossing; removing any one of them, e.g. \`${edgeName(parsed, last)}\`, makes them drawable.`
+    : `These ${plural(edges.length, 'edge')} cannot all point the same way without two of them crossing (the time budget ran out before the smallest such set was found).`
+  return {
+    certificate: {kind: 'obstruction', edges: userEdges},
+    diagnostic: {
+      severity: 'error',
+      ruleId: 'not-upward',
+      reason,
+      range: parsed.edges[last]!.range,
+      note: 'The diagram has no cycle and could be drawn without crossings if arrows were free to point any way, but no crossing-free drawing keeps every arrow pointing the same way (it is not upward planar). Removing or reversing one of these edges, or splitting the diagram, fixes it.',
+      related: edges.map((e) => ({range: parsed.edges[e]!.range, reason: `\`${edgeName(parsed, e)}\` is part of the obstruction`}))
+    }
+  }
+}
+
+export function undecidedDiagnostic(parsed: ParsedDiagram, budgetMillis: number): Diagnostic {
+  return {
+    severity: 'error',
+    ruleId: 'undecided',
+    reason: `The check could not decide within its time budget (${budgetMillis} ms) whether this diagram can be drawn with every arrow pointing the same way and no crossings.`,
+    range: parsed.edges[0]?.range ?? parsed.vertices[0]!.range,
+    note: 'Deciding this is NP-complete for diagrams with several sources and several sinks (Garg & Tamassia 2001), so a large tangled diagram can take long. Raise the budget (`--budget`, plugin option `budget`) or split the diagram into smaller ones.'
+  }
+}
