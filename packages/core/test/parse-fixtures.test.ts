@@ -11,7 +11,7 @@
 import {readdirSync, readFileSync, writeFileSync, existsSync} from 'node:fs'
 import {join} from 'node:path'
 import {describe, expect, it} from 'vitest'
-import {parseDiagram, type ParsedDiagram, type SourceRange} from '@upright/core'
+import {parseDiagram, parseRuleIds, type ParsedDiagram, type SourceRange} from '@upright/core'
 
 const root = new URL('../../../fixtures/parse/', import.meta.url).pathname
 const update = process.env['UPDATE'] === '1'
@@ -73,6 +73,15 @@ const cases = readdirSync(root, {withFileTypes: true})
 describe('parse fixtures', () => {
   it('has at least 25 cases', () => {
     expect(cases.length).toBeGreaterThanOrEqual(25)
+  })
+
+  it('covers every diagram rule id, and reports no other', () => {
+    const seen = new Set<string>()
+    for (const name of cases) {
+      for (const diagnostic of parseDiagram(readFileSync(join(root, name, 'input.upright'), 'utf8')).diagnostics) seen.add(diagnostic.ruleId)
+    }
+    const optionRules = new Set(['unknown-option', 'bad-option-value', 'duplicate-option'])
+    expect([...seen].sort()).toEqual(parseRuleIds.filter((ruleId) => !optionRules.has(ruleId)).sort())
   })
 
   for (const name of cases) {

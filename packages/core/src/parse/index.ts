@@ -41,6 +41,28 @@ export interface ParsedDiagram {
   diagnostics: Diagnostic[]
 }
 
+/**
+ * Every rule id the parser and the option readers report, each with a section of the same name in
+ * docs/language.md.
+ */
+export const parseRuleIds = [
+  'unterminated-string',
+  'bad-escape',
+  'unexpected-character',
+  'missing-vertex',
+  'empty-list-item',
+  'missing-separator',
+  'misplaced-label',
+  'conflicting-label',
+  'empty-diagram',
+  'duplicate-edge',
+  'unknown-option',
+  'bad-option-value',
+  'duplicate-option'
+] as const
+
+export type ParseRuleId = (typeof parseRuleIds)[number]
+
 export {parseDiagram} from './parser.ts'
 export type {Flow, DiagramOptions, OptionSpec, OptionValue} from './options.ts'
 export {

@@ -94,14 +94,15 @@ export function createScanner(text: string): Scanner {
     return {kind: 'end', last: offset >= text.length, range: range(offset, offset)}
   }
 
+  /** A quoted label from the `"` at `offset`; it must close on the same line. */
   function scanLabel(): Token {
     const open = offset
-    const lineEnd = lineEndFrom(open)
     let value = ''
     let chunkStart = open + 1
     let at = open + 1
-    while (at < lineEnd) {
+    while (at < text.length) {
       const code = text.charCodeAt(at)
+      if (isLineEnding(code)) break
       if (code === quote) {
         value += text.slice(chunkStart, at)
         offset = at + 1
@@ -115,7 +116,11 @@ export function createScanner(text: string): Scanner {
           chunkStart = at
           continue
         }
-        if (at + 1 >= lineEnd) break
+        // A backslash at the end of the line is reported as the missing closing quote.
+        if (at + 1 >= text.length || isLineEnding(escaped)) {
+          at++
+          break
+        }
         const width = codePointWidth(text, at + 1)
         const shown = text.slice(at, at + 1 + width)
         return error(
@@ -127,12 +132,7 @@ export function createScanner(text: string): Scanner {
       }
       at++
     }
-    return error(
-      'unterminated-string',
-      'This label has no closing `"` before the end of the line.',
-      open,
-      lineEnd
-    )
+    return error('unterminated-string', 'This label has no closing `"` before the end of the line.', open, at)
   }
 
   function next(): Token {
