@@ -9,7 +9,7 @@
  */
 import {readdirSync, readFileSync} from 'node:fs'
 import path from 'node:path'
-import {parseDiagram} from '@upright/core'
+import {parseDiagram} from '../../packages/core/src/index.ts'
 import {findDiagramBlocks, parseMarkdown} from 'remark-upright'
 import {runPythonJson} from '../support/python.ts'
 

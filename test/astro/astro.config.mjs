@@ -1,0 +1,4 @@
+import {defineConfig} from 'astro/config'
+import {siteConfig} from './site-config.mjs'
+
+export default defineConfig(siteConfig())
