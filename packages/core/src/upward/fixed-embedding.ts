@@ -30,8 +30,9 @@ import type {UpwardEmbedding} from './upward-embedding.ts'
 export interface UpwardEmbeddedOptions {
   /**
    * Face index (into traceFaces(emb).darts) that must be the outer face of its component. Other
-   * components still try each of their faces. Default: every face of every component is tried, in
-   * index order, and the first that works is taken.
+   * components still try each of their faces. Default: the faces of each component are tried in a
+   * fixed order (those reachable in the residual network of the all-inner flow, most switches first,
+   * then by index) and the first that works is taken.
    */
   outerFace?: number | null | undefined
 }
@@ -91,8 +92,12 @@ export function testUpwardEmbedded(
 
   const assignedFace = new Int32Array(n).fill(-1)
   const outerFaces = new Int32Array(facesOf.length)
+  const faceNode = new Int32Array(faceCount)
+  const faceMark = new Int32Array(faceCount)
   for (let c = 0; c < facesOf.length; c++) {
-    const outer = solveComponent(g, emb, faces.faceOfDart, switches, verticesOf[c]!, facesOf[c]!, fixedOuter, assignedFace)
+    const outer = solveComponent(
+      g, emb, faces.faceOfDart, switches, verticesOf[c]!, facesOf[c]!, fixedOuter, assignedFace, faceNode, faceMark
+    )
     if (outer === -1) return {ok: false, reason: 'no-assignment', component: verticesOf[c]!}
     outerFaces[c] = outer
   }
@@ -147,7 +152,8 @@ function components(g: Digraph): Int32Array {
 
 /**
  * Solves one component; writes the chosen face of each of its sources and sinks into assignedFace
- * and returns the outer face, or -1 when no face works.
+ * and returns the outer face, or -1 when no face works. faceNode and faceMark are scratch arrays
+ * indexed by face, shared between components (faceNode entries are set here before use).
  */
 function solveComponent(
   g: Digraph,
@@ -157,44 +163,53 @@ function solveComponent(
   vertices: number[],
   compFaces: number[],
   fixedOuter: number,
-  assignedFace: Int32Array
+  assignedFace: Int32Array,
+  faceNode: Int32Array,
+  faceMark: Int32Array
 ): number {
   // Nodes: 0 = source, 1 = sink, then this component's sources/sinks, then its faces.
   const extremes = vertices.filter((v) => g.outStart[v + 1] === g.outStart[v] || g.inStart[v + 1] === g.inStart[v])
   const k = extremes.length
-  const faceNode = new Map<number, number>()
-  compFaces.forEach((f, i) => faceNode.set(f, 2 + k + i))
+  compFaces.forEach((f, i) => (faceNode[f] = 2 + k + i))
   const b = new FlowNetworkBuilder(2 + k + compFaces.length)
   for (let i = 0; i < k; i++) {
     const v = extremes[i]!
     b.addArc(0, 2 + i, 1)
-    const seen = new Set<number>()
     const rot = emb.rotation[v]!
     for (let j = 0; j < rot.length; j++) {
       // The dart entering v along rot[j] names the angle after rot[j]; every angle of a source or
-      // sink is a switch.
+      // sink is a switch. One arc per face, however many angles v has there.
       const e = rot[j]!
-      const dIn = g.head[e] === v ? 2 * e : 2 * e + 1
-      const f = faceOfDart[dIn]!
-      if (seen.has(f)) continue
-      seen.add(f)
-      b.addArc(2 + i, faceNode.get(f)!, 1)
+      const f = faceOfDart[g.head[e] === v ? 2 * e : 2 * e + 1]!
+      if (faceMark[f] === v + 1) continue
+      faceMark[f] = v + 1
+      b.addArc(2 + i, faceNode[f]!, 1)
     }
   }
-  const sinkArc = new Map<number, number>()
-  for (const f of compFaces) {
-    const cap = switches[f]! / 2 - 1
+  const sinkArc = new Int32Array(compFaces.length)
+  for (let i = 0; i < compFaces.length; i++) {
+    const cap = switches[compFaces[i]!]! / 2 - 1
     // cap < 0 only for a face without switches, i.e. bounded by a directed cycle (excluded earlier).
     if (cap < 0) return -1
-    sinkArc.set(f, b.addArc(faceNode.get(f)!, 1, cap))
+    sinkArc[i] = b.addArc(2 + k + i, 1, cap)
   }
   const base = b.build()
   const baseFlow = maxFlow(base, 0, 1)
   if (baseFlow < k - 2) return -1
-  const candidates = fixedOuter !== -1 && faceNode.has(fixedOuter) ? [fixedOuter] : compFaces
+  let candidates: number[]
+  if (fixedOuter !== -1 && compFaces.includes(fixedOuter)) {
+    candidates = [fixedOuter]
+  } else {
+    // Only a face reachable from the source in the residual network can take the missing units;
+    // faces with more switches first (an outer face needs n_f + 1 large angles), then by index.
+    const reach = residualReach(base, 0)
+    candidates = compFaces
+      .filter((f) => baseFlow === k || reach[faceNode[f]!] === 1)
+      .sort((x, y) => switches[y]! - switches[x]! || x - y)
+  }
   for (const f0 of candidates) {
     const net: FlowNetwork = copyFlowNetwork(base)
-    net.residual[sinkArc.get(f0)!]! += 2
+    net.residual[sinkArc[faceNode[f0]! - 2 - k]!]! += 2
     if (baseFlow + maxFlow(net, 0, 1, k - baseFlow) !== k) continue
     for (let i = 0; i < k; i++) {
       const node = 2 + i
@@ -209,4 +224,23 @@ function solveComponent(
     return f0
   }
   return -1
+}
+
+/** 1 for every node reachable from s along arcs with residual capacity. */
+function residualReach(net: FlowNetwork, s: number): Uint8Array {
+  const seen = new Uint8Array(net.nodeCount)
+  const stack = [s]
+  seen[s] = 1
+  while (stack.length > 0) {
+    const u = stack.pop()!
+    for (let p = net.start[u]!; p < net.start[u + 1]!; p++) {
+      const a = net.arcs[p]!
+      const v = net.to[a]!
+      if (net.residual[a]! > 0 && seen[v] === 0) {
+        seen[v] = 1
+        stack.push(v)
+      }
+    }
+  }
+  return seen
 }
