@@ -298,6 +298,35 @@ describe('testUpwardEmbedded against the brute-force oracle', () => {
 })
 
 describe('testUpwardEmbedded on random planar st-graphs and their spanning subgraphs', () => {
+  it('the generator gives planar st-graphs with s and t on the marked outer face (checked with the oracle\'s own face tracing)', () => {
+    for (let seed = 1; seed <= 300; seed++) {
+      const st = randomUpwardPlanar(seed, 2 + (seed % 50)).st
+      const n = st.vertexCount
+      expect(isAcyclic(n, st.edges)).toBe(true)
+      expect(isPlanarRotation(n, st.edges, st.rotation)).toBe(true)
+      const indeg = new Array<number>(n).fill(0)
+      const outdeg = new Array<number>(n).fill(0)
+      for (const [u, v] of st.edges) {
+        outdeg[u]!++
+        indeg[v]!++
+      }
+      expect(indeg.flatMap((d, v) => (d === 0 ? [v] : []))).toEqual([st.source])
+      expect(outdeg.flatMap((d, v) => (d === 0 ? [v] : []))).toEqual([st.sink])
+      // Walk the outer face from its marked dart: it must pass through s and t.
+      const onOuter = new Set<number>()
+      const head = (d: number) => (d & 1 ? st.edges[d >> 1]![0] : st.edges[d >> 1]![1])
+      let d = st.outerDart
+      do {
+        const v = head(d)
+        onOuter.add(v)
+        const r = st.rotation[v]!
+        const e2 = r[(r.indexOf(d >> 1) + 1) % r.length]!
+        d = st.edges[e2]![0] === v ? 2 * e2 : 2 * e2 + 1
+      } while (d !== st.outerDart)
+      expect(onOuter.has(st.source) && onOuter.has(st.sink)).toBe(true)
+    }
+  })
+
   it('accepts every one, with st outer face given or not, and the witness checks out', () => {
     for (let seed = 1; seed <= 800; seed++) {
       const r = randomUpwardPlanar(seed, 2 + (seed % 40))
