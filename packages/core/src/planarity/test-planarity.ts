@@ -29,15 +29,17 @@ export function testPlanarity(g: Digraph): PlanarityResult {
 
 function liftRotation(g: Digraph, s: Simplified, rot: SimpleRotation): RotationSystem {
   const n = g.vertexCount
-  const loopCount = new Int32Array(n)
-  for (const e of s.loops) loopCount[g.tail[e]!]!++
+  // One buffer for all rotations (2 entries per edge), each vertex a view into it: far fewer
+  // allocations than one array per vertex.
+  const buffer = new Int32Array(2 * g.edgeCount)
   const rotation: Int32Array[] = []
   const fill = new Int32Array(n)
+  let offset = 0
   for (let v = 0; v < n; v++) {
-    rotation.push(new Int32Array(g.outStart[v + 1]! - g.outStart[v]! + g.inStart[v + 1]! - g.inStart[v]!))
-  }
-  for (let v = 0; v < n; v++) {
-    const r = rotation[v]!
+    const deg = g.outStart[v + 1]! - g.outStart[v]! + g.inStart[v + 1]! - g.inStart[v]!
+    const r = buffer.subarray(offset, offset + deg)
+    offset += deg
+    rotation.push(r)
     let k = 0
     for (let i = rot.start[v]!; i < rot.start[v + 1]!; i++) {
       const se = rot.order[i]!
