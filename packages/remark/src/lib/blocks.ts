@@ -125,7 +125,8 @@ function fromDirectiveText(parent: Parent, index: number, lines: SourceLines): D
   const nodes: RootContent[] = []
   for (let i = index; i < parent.children.length; i++) {
     const child = parent.children[i] as RootContent
-    if (!child.position || child.position.start.offset! > end.offset) break
+    const position = (child as {position?: {start: {offset?: number | undefined}}}).position
+    if (!position || position.start.offset! > end.offset) break
     nodes.push(child)
   }
   // Let the directive syntax itself read the attributes, so both paths agree on them.

@@ -10,6 +10,7 @@ import type {Flow} from '@upright/core'
 import {defaultBudgetMillis} from '@upright/core'
 import {findDiagramBlocks} from './blocks.ts'
 import {checkBlock, type BlockMessage, type BlockResult} from './check-block.ts'
+import {renderBlock, replaceBlock, type Output} from './render-block.ts'
 import {indexLines} from './source-lines.ts'
 
 export interface Options {
@@ -25,6 +26,14 @@ export interface Options {
   budget?: number | null | undefined
   /** Where rule documentation lives; a message links to `${rulesUrl}#${ruleId}` (default: `'docs/rules.md'`). */
   rulesUrl?: string | null | undefined
+  /**
+   * How a drawing enters the tree (default: `'hast'`): `'hast'` puts a `<figure>` with the inline SVG
+   * in the node's `data`, for remark-rehype without raw HTML; `'html'` puts an `html` node, for
+   * pipelines that write Markdown back out or pass raw HTML through.
+   */
+  output?: Output | null | undefined
+  /** Replace passing blocks by their drawing (default: `true`); `false` only checks. */
+  draw?: boolean | null | undefined
 }
 
 export const messageSource = 'upright'
@@ -34,13 +43,34 @@ export default function remarkUpright(options?: Readonly<Options> | null | undef
     flow: options?.flow ?? undefined,
     onFailure: options?.onFailure ?? 'fail',
     budget: options?.budget ?? defaultBudgetMillis,
-    rulesUrl: options?.rulesUrl ?? 'docs/rules.md'
+    rulesUrl: options?.rulesUrl ?? 'docs/rules.md',
+    output: options?.output ?? 'hast',
+    draw: options?.draw ?? true
   }
   return function transform(tree: Root, file: VFile): void {
     const results = checkTree(tree, String(file.value ?? ''), settings)
     let lastFatal: {message: BlockMessage} | undefined
     const fatal: VFileMessage[] = []
+    const usedPrefixes = new Map<string, number>()
     for (const result of results) {
+      if (result.status === 'upward' && settings.draw) {
+        let outcome: ReturnType<typeof renderBlock>
+        try {
+          outcome = renderBlock(result, settings.output, usedPrefixes)
+        } catch (error) {
+          outcome = {ok: false, reason: error instanceof Error ? error.message : String(error)}
+        }
+        if (outcome.ok) replaceBlock(result, outcome.node)
+        else {
+          // A passing diagram that cannot be drawn is our bug, never the writer's: say so plainly.
+          result.messages.push({
+            severity: 'error',
+            ruleId: 'internal-error',
+            reason: `Upright could not draw this diagram although it passed its check (${outcome.reason}); please report it.`,
+            place: {start: result.block.start, end: result.block.end}
+          })
+        }
+      }
       for (const message of result.messages) {
         const asError = message.severity === 'error' && settings.onFailure === 'fail'
         if (asError) lastFatal = {message}

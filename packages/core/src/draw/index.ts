@@ -1,0 +1,2 @@
+export type {DrawSettings, Drawing, DrawResult} from './draw-diagram.ts'
+export {drawDiagram} from './draw-diagram.ts'
