@@ -1,48 +1,11 @@
 import {describe, expect, it} from 'vitest'
 import {createDigraph} from '../src/index.ts'
-import {testPlanarity, verifyKuratowski} from '../src/planarity/index.ts'
-import {findMinimalObstruction, testUpwardPlanarity, type UpwardTestResult} from '../src/upward/index.ts'
-import {checkUpwardWitness, isUpwardPlanarBruteForce, labeledDags, type Edge} from './support/upward-oracle.ts'
+import {testPlanarity} from '../src/planarity/index.ts'
+import {findMinimalObstruction, testUpwardPlanarity} from '../src/upward/index.ts'
+import {isUpwardPlanarBruteForce, labeledDags, type Edge} from './support/upward-oracle.ts'
 import {mulberry32, randomUpwardPlanar} from './support/random-st.ts'
 import {randomDag, type Family} from './support/upward-families.ts'
-
-/** Runs the exact test and checks its witness independently (the oracle's checker). */
-function decide(n: number, edges: readonly Edge[]): UpwardTestResult {
-  const g = createDigraph(n, edges)
-  const r = testUpwardPlanarity(g, {maxMillis: 20_000})
-  if (r.status === 'upward') {
-    const up = r.upward
-    expect(up.embedding.graph).toBe(g)
-    const outerDarts = Array.from(up.outerFaces, (f) => up.faces.darts[f]![0]!)
-    expect(checkUpwardWitness(n, edges, up.embedding.rotation, outerDarts, up.largeAngle)).toBe(null)
-  } else if (r.status === 'not-upward' && r.reason === 'nonplanar') {
-    const p = testPlanarity(g)
-    expect(p.planar).toBe(false)
-    if (!p.planar) expect(verifyKuratowski(g, p.kuratowski)).toEqual({ok: true})
-  }
-  return r
-}
-
-const upward = (n: number, edges: readonly Edge[]) => {
-  const r = decide(n, edges)
-  expect(r.status).not.toBe('undecided')
-  return r.status === 'upward'
-}
-
-const parse = (s: string): Edge[] => s.split(',').map((p) => p.trim().split('->').map(Number) as [number, number])
-
-/** Obstruction from the deletion filter, re-checked by the oracle: not upward, each edge needed. */
-function checkObstruction(n: number, edges: readonly Edge[]): number {
-  const res = findMinimalObstruction(createDigraph(n, edges), {maxMillis: 20_000})
-  expect(res.ok).toBe(true)
-  if (!res.ok) return 0
-  const sub = res.edges.map((e) => edges[e]!)
-  expect(isUpwardPlanarBruteForce(n, sub)).toBe(false)
-  for (let i = 0; i < sub.length; i++) {
-    expect(isUpwardPlanarBruteForce(n, sub.filter((_, j) => j !== i))).toBe(true)
-  }
-  return sub.length
-}
+import {checkObstruction, decide, parse, upward} from './support/upward-check.ts'
 
 describe('facts (sources named per case)', () => {
   it('every DAG on at most 4 vertices is upward planar; 1, 1, 3, 25, 543 labeled DAGs (OEIS A003024)', () => {
@@ -159,60 +122,6 @@ describe('reduction lemmas against the brute-force oracle', () => {
       expect(upward(n + 1, grown)).toBe(before)
     }
     expect(seen.no).toBeGreaterThan(10)
-  })
-})
-
-describe('random DAGs with at most 8 vertices against the brute-force oracle', () => {
-  const families: Family[] = ['dag', 'single-source', 'st', 'bipartite']
-  it('agrees on 5,000 DAGs; every yes re-checked, obstructions re-checked for a sample of the no', () => {
-    const rnd = mulberry32(2026)
-    const tally: Record<string, number> = {}
-    let obstructions = 0
-    let k = 0
-    while (k < 5000) {
-      const family = families[k % families.length]!
-      const n = 3 + Math.floor(rnd() * 6)
-      const edges = randomDag(rnd, n, 0.25 + 0.4 * rnd(), family)
-      if (edges.length > 13) continue // keeps the oracle's enumeration small
-      k++
-      const r = decide(n, edges)
-      expect(r.status).not.toBe('undecided')
-      const key = `${family}:${r.status === 'not-upward' ? r.reason : r.status}`
-      tally[key] = (tally[key] ?? 0) + 1
-      if (r.status === 'not-upward' && r.reason === 'nonplanar') continue
-      expect(r.status === 'upward', JSON.stringify({n, edges})).toBe(isUpwardPlanarBruteForce(n, edges))
-      if (r.status === 'not-upward' && obstructions < 60) {
-        checkObstruction(n, edges)
-        obstructions++
-      }
-    }
-    expect(obstructions).toBe(60)
-    for (const f of families) expect(tally[`${f}:upward`] ?? 0).toBeGreaterThan(1000)
-    const planarNo = Object.entries(tally).filter(([key]) => /bimodal|no-upward/.test(key)).reduce((s, [, c]) => s + c, 0)
-    expect(planarNo).toBeGreaterThan(50)
-  })
-
-  it('agrees on 500 denser planar DAGs with 5 to 7 vertices, where "no" is common', () => {
-    const rnd = mulberry32(4242)
-    let no = 0, k = 0
-    while (k < 500) {
-      const n = 5 + Math.floor(rnd() * 3)
-      const family = (['dag', 'single-source', 'st'] as const)[k % 3]
-      const edges = randomDag(rnd, n, 0.5 + 0.3 * rnd(), family)
-      if (edges.length > 13 || !testPlanarity(createDigraph(n, edges)).planar) continue
-      k++
-      const got = upward(n, edges)
-      expect(got, JSON.stringify({n, edges})).toBe(isUpwardPlanarBruteForce(n, edges))
-      if (!got) no++
-    }
-    expect(no).toBeGreaterThan(20)
-  })
-
-  it('says yes on random upward planar graphs (subgraphs of random planar st-graphs)', () => {
-    for (let seed = 1; seed <= 300; seed++) {
-      const g = randomUpwardPlanar(seed, 4 + (seed % 30))
-      expect(upward(g.vertexCount, g.edges)).toBe(true)
-    }
   })
 })
 
