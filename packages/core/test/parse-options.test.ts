@@ -10,7 +10,8 @@ import {
   parseAttributeOptions,
   parseMetaOptions,
   resolveOptions,
-  type Diagnostic
+  type Diagnostic,
+  type DiagramOptions
 } from '@upright/core'
 
 /** `[ruleId, reason, "startColumn-endColumn", text covered]` for each diagnostic. */
@@ -152,6 +153,13 @@ describe('resolveOptions', () => {
   it('lets later layers win and ignores undefined fields', () => {
     expect(resolveOptions({flow: 'down', title: 'A'}, {flow: 'left'}, {title: undefined})).toEqual({flow: 'left', title: 'A'})
     expect(resolveOptions({title: 'A'}, {title: ''})).toEqual({flow: 'up', title: ''})
+  })
+
+  it('derives the options type from the schema (checked by tsc)', () => {
+    const options: DiagramOptions = {flow: 'right', title: undefined}
+    // @ts-expect-error: not a flow
+    const wrong: DiagramOptions = {flow: 'sideways', title: 'x'}
+    expect([options.flow, wrong.title]).toEqual(['right', 'x'])
   })
 
   it('has a schema entry with a summary for every option', () => {

@@ -2,7 +2,8 @@
  * Diagram options: one schema table of known keys, each with a value parser, read either from a code
  * fence's meta string (`flow=down title="Release pipeline"`) or from container-directive attributes
  * that remark-directive has already split into a record. Adding an option is one entry in
- * `optionSchema` plus its field in `DiagramOptions`.
+ * `optionSchema`: its type, default, parser and summary all live there, and `DiagramOptions`,
+ * `defaultDiagramOptions` and the error messages follow from it.
  *
  * The meta scanner is a single left-to-right pass, linear in the length of the meta string.
  */
@@ -11,22 +12,21 @@ import {codePointWidth, showCharacter} from './scanner.ts'
 
 export type Flow = 'up' | 'down' | 'left' | 'right'
 
-export interface DiagramOptions {
-  /** Which way every edge points in the drawing, tail to head. Default `up`. */
-  flow: Flow
-  /** A caption shown with the diagram and used as its accessible name. Default: none. */
-  title: string | undefined
-}
-
-export const defaultDiagramOptions: Readonly<DiagramOptions> = Object.freeze({flow: 'up', title: undefined})
+export const flows: readonly Flow[] = ['up', 'down', 'left', 'right']
 
 export type OptionValue<T> = {ok: true; value: T} | {ok: false; expected: string}
 
 export interface OptionSpec<T> {
-  /** One line for docs and `--help`. */
+  /** One line for docs and `--help`, stating the default. */
   summary: string
-  /** `null` when the key is written without `=value`. */
+  default: T
+  /** `null` when the key is written without `=value`; `expected` completes "must be …". */
   parse(value: string | null): OptionValue<T>
+}
+
+/** Identity with a type argument, so each schema entry states its value type once. */
+function option<T>(spec: OptionSpec<T>): OptionSpec<T> {
+  return spec
 }
 
 function oneOf<const T extends string>(allowed: readonly T[]): (value: string | null) => OptionValue<T> {
@@ -34,19 +34,26 @@ function oneOf<const T extends string>(allowed: readonly T[]): (value: string | 
   return (value) => ((allowed as readonly string[]).includes(value ?? '') ? {ok: true, value: value as T} : {ok: false, expected})
 }
 
-export const flows: readonly Flow[] = ['up', 'down', 'left', 'right']
-
 /** Every known option; keys are the names authors write. */
-export const optionSchema: {readonly [K in keyof DiagramOptions]: OptionSpec<DiagramOptions[K]>} = {
-  flow: {
-    summary: 'Direction every edge points in the drawing: up, down, left or right (default up).',
+export const optionSchema = {
+  flow: option<Flow>({
+    summary: 'Direction every edge points in the drawing, tail to head: up, down, left or right (default up).',
+    default: 'up',
     parse: oneOf(flows)
-  },
-  title: {
+  }),
+  title: option<string | undefined>({
     summary: 'Caption and accessible name of the diagram (default none; `title=""` shows none).',
+    default: undefined,
     parse: (value) => (value === null ? {ok: false, expected: 'a text, such as `title="Release pipeline"`'} : {ok: true, value})
-  }
-}
+  })
+} as const
+
+/** One field per `optionSchema` entry: `flow` (default `up`) and `title` (default none). */
+export type DiagramOptions = {-readonly [K in keyof typeof optionSchema]: (typeof optionSchema)[K] extends OptionSpec<infer T> ? T : never}
+
+export const defaultDiagramOptions: Readonly<DiagramOptions> = Object.freeze(
+  Object.fromEntries(Object.entries(optionSchema).map(([name, spec]) => [name, spec.default])) as DiagramOptions
+)
 
 export const optionNames = Object.keys(optionSchema) as Array<keyof DiagramOptions>
 
