@@ -1,4 +1,4 @@
-import {mkdirSync, mkdtempSync, writeFileSync} from 'node:fs'
+import {mkdirSync, mkdtempSync, readFileSync, writeFileSync} from 'node:fs'
 import {tmpdir} from 'node:os'
 import path from 'node:path'
 import {spawnSync} from 'node:child_process'
@@ -134,5 +134,54 @@ describe('upright check', () => {
     })
     expect(result.status).toBe(1)
     expect(result.stdout).toContain('fixtures/cli/cycle.upright:3:1: error:')
+  })
+})
+
+describe('upright layout and render', () => {
+  it('prints the layout JSON with stats: boxes around centres, edges pointing up, 0 crossings', async () => {
+    const {code, stdout} = await cli(['layout', 'fixtures/cli/chain.upright', '--stats'])
+    expect(code).toBe(0)
+    const json = JSON.parse(stdout)
+    expect(json.flow).toBe('up')
+    expect(json.nodes.map((n: {id: string}) => n.id)).toEqual(['a', 'b', 'c'])
+    expect(json.edges.map((e: {from: string; to: string}) => [e.from, e.to])).toEqual([['a', 'b'], ['b', 'c']])
+    for (const e of json.edges as Array<{points: number[][]}>) {
+      // flow=up: y decreases from tail to head (SVG y grows downward).
+      for (let i = 1; i < e.points.length; i++) expect(e.points[i]![1]).toBeLessThan(e.points[i - 1]![1]!)
+    }
+    expect(json.stats).toMatchObject({crossings: 0, bends: 0})
+  })
+
+  it('rotates with --flow right: edges point to larger x', async () => {
+    const {stdout} = await cli(['layout', 'fixtures/cli/chain.upright', '--flow', 'right'])
+    const json = JSON.parse(stdout)
+    expect(json.flow).toBe('right')
+    for (const e of json.edges as Array<{points: number[][]}>) expect(e.points.at(-1)![0]).toBeGreaterThan(e.points[0]![0]!)
+  })
+
+  it('renders byte-identical SVG twice, to stdout or a file', async () => {
+    const a = await cli(['render', 'fixtures/cli/chain.upright'])
+    const b = await cli(['render', 'fixtures/cli/chain.upright'])
+    expect(a.code).toBe(0)
+    expect(a.stdout).toMatch(/^<svg xmlns="http:\/\/www.w3.org\/2000\/svg"/)
+    expect(a.stdout).toBe(b.stdout)
+    const dir = mkdtempSync(path.join(tmpdir(), 'upright-'))
+    const out = path.join(dir, 'out.svg')
+    expect((await cli(['render', 'fixtures/cli/chain.upright', '-o', out])).code).toBe(0)
+    expect(readFileSync(out, 'utf8')).toBe(a.stdout)
+  })
+
+  it('refuses to draw a failing diagram, with the check messages, exit 1', async () => {
+    const {code, stdout, stderr} = await cli(['render', 'fixtures/cli/wheel.upright'])
+    expect(code).toBe(1)
+    expect(stdout).toBe('')
+    expect(stderr).toContain('[not-upward]')
+  })
+
+  it('picks the n-th diagram of a Markdown file and says when there is none', async () => {
+    expect((await cli(['layout', 'fixtures/markdown/good.md', '--diagram', '2'])).code).toBe(0)
+    const missing = await cli(['layout', 'fixtures/markdown/good.md', '--diagram', '3'])
+    expect(missing.code).toBe(2)
+    expect(missing.stderr).toContain('there is no diagram 3')
   })
 })

@@ -8,6 +8,9 @@ import {collectFiles} from './collect-files.ts'
 import {checkFile, type FileReport} from './check-files.ts'
 import {toJsonReport} from './format-json.ts'
 import {formatText, summarize} from './format-text.ts'
+import {drawFile, layoutJson, renderFileSvg} from './draw-file.ts'
+import {writeFile} from 'node:fs/promises'
+import path from 'node:path'
 
 export interface Io {
   cwd: string
@@ -41,6 +44,32 @@ export async function run(argv: readonly string[], io: Io): Promise<number> {
       exit = await check(paths, opts, io)
     })
 
+  for (const name of ['layout', 'render'] as const) {
+    const command = program
+      .command(name)
+      .argument('<file>', 'a .upright file, or a Markdown file (see --diagram)')
+      .option('--diagram <n>', 'which diagram of a Markdown file, counting from 1', parsePositive, 1)
+      .addOption(new Option('--flow <flow>', 'flow (overrides the default; a diagram that sets flow keeps it)').choices(flows))
+      .option('--title <title>', 'title (for .upright files)')
+      .option('--budget <ms>', 'milliseconds the upward test may spend', parseBudget)
+    if (name === 'layout') {
+      command
+        .description('print the drawing\'s geometry: boxes and edge polylines in SVG coordinates')
+        .addOption(new Option('--format <format>', 'output format').choices(['json']).default('json'))
+        .option('--stats', 'add area, aspect ratio, bends, total edge length and crossings')
+        .action(async (file: string, opts: DrawOpts & {stats?: boolean}) => {
+          exit = await draw(file, opts, io, (drawing) => JSON.stringify(layoutJson(drawing, Boolean(opts.stats))) + '\n')
+        })
+    } else {
+      command
+        .description('write the drawing as an optimized, accessible SVG')
+        .option('-o, --output <file>', 'write to this file instead of standard output')
+        .action(async (file: string, opts: DrawOpts & {output?: string}) => {
+          exit = await draw(file, opts, io, (drawing, title) => renderFileSvg(drawing, title) + '\n', opts.output)
+        })
+    }
+  }
+
   try {
     await program.parseAsync([...argv], {from: 'user'})
   } catch (error) {
@@ -51,6 +80,49 @@ export async function run(argv: readonly string[], io: Io): Promise<number> {
     throw error
   }
   return exit
+}
+
+interface DrawOpts {
+  diagram: number
+  flow?: Flow
+  title?: string
+  budget?: number
+}
+
+async function draw(
+  file: string,
+  opts: DrawOpts,
+  io: Io,
+  format: (drawing: import('@upright/core').Drawing, title: string | undefined) => string,
+  output?: string
+): Promise<number> {
+  const base = baseDirectory(io)
+  const result = await drawFile(path.resolve(base, file), {base, ...opts})
+  if (!result.ok) {
+    if (result.problem === 'no-such-diagram') {
+      io.stderr.write(`upright: ${file} has ${result.report.results.length} diagram(s); there is no diagram ${opts.diagram}\n`)
+      return exitCodes.usage
+    }
+    const colour = Boolean(io.stderr.isTTY) && io.env['NO_COLOR'] === undefined
+    io.stderr.write(formatText([result.report], {colour}))
+    return result.problem === 'unreadable' ? exitCodes.usage : exitCodes.failed
+  }
+  const text = format(result.drawing, result.title)
+  if (output) {
+    try {
+      await writeFile(path.resolve(base, output), text)
+    } catch (error) {
+      io.stderr.write(`upright: cannot write ${output}: ${error instanceof Error ? error.message : String(error)}\n`)
+      return exitCodes.usage
+    }
+  } else io.stdout.write(text)
+  return exitCodes.ok
+}
+
+function parsePositive(value: string): number {
+  const n = Number(value)
+  if (!Number.isInteger(n) || n < 1) throw new InvalidArgumentError('expected a whole number from 1')
+  return n
 }
 
 function parseBudget(value: string): number {
