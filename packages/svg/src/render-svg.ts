@@ -152,12 +152,14 @@ function buildTree(input: RenderInput, settings: Settings): Root {
   const lead = input.description?.trim()
   const desc = lead ? `${lead}${/[.!?]$/.test(lead) ? '' : '.'} ${generated}` : generated
 
-  const lines: Element[] = []
-  const arrows: Element[] = []
+  // All lines share one style, so they form one path of many subpaths (likewise the arrowheads):
+  // what svgo's mergePaths would produce, without its pairwise checks.
+  let lineData = ''
+  let arrowData = ''
   for (const e of edges) {
     const shape = edgeShape(e.points, settings.edge, precision)
-    if (shape.line) lines.push(s('path', {d: shape.line}))
-    if (shape.arrow) arrows.push(s('path', {d: shape.arrow}))
+    lineData += shape.line
+    arrowData += shape.arrow
   }
 
   const boxes: Element[] = []
@@ -214,14 +216,42 @@ function buildTree(input: RenderInput, settings: Settings): Root {
         rx: f(Math.min(8, margin)),
         fill: light.background
       }),
-      s('g', {className: [CLASS.lines], fill: 'none', stroke: light.edgeStroke, strokeWidth: EDGE_STROKE_WIDTH, strokeLinecap: 'round', strokeLinejoin: 'round'}, lines),
+      s('g', {className: [CLASS.lines], fill: 'none', stroke: light.edgeStroke, strokeWidth: EDGE_STROKE_WIDTH, strokeLinecap: 'round', strokeLinejoin: 'round'}, lineData ? [s('path', {d: lineData})] : []),
       s('g', {className: [CLASS.boxes], fill: light.nodeFill, stroke: light.nodeStroke, strokeWidth: NODE_STROKE_WIDTH}, boxes),
       s('g', {className: [CLASS.labels], fill: light.nodeText, fontFamily: FONT_STACK, fontSize: f(fontSize), textAnchor: 'middle'}, labels),
-      s('g', {className: [CLASS.arrows], fill: light.arrowFill}, arrows)
+      s('g', {className: [CLASS.arrows], fill: light.arrowFill}, arrowData ? [s('path', {d: arrowData})] : [])
     ]
   )
   return {type: 'root', children: [svg]}
 }
+
+/**
+ * svgo passes, chosen for a tree we generate ourselves. Kept: the ones that shorten what we write
+ * (path data to relative and shorthand commands, numbers, colours, the stylesheet via csso, groups and
+ * attributes). Left out, each for a reason:
+ * - cleanupIds: ids are already short, scoped by the prefix and referenced from aria-* and the CSS;
+ * - inlineStyles: rules must stay in <style> so media queries and the site's properties reach them;
+ * - removeUnknownsAndDefaults, removeHiddenElems, removeUselessStrokeAndFill: we write no unknown,
+ *   hidden or useless markup, and they match the stylesheet against every element, which costs more
+ *   than the rest of the optimization together on large diagrams (and the first would drop role="img");
+ * - mergePaths, moveElemsAttrsToGroup, moveGroupAttrsToElems, convertShapeToPath: the tree is built
+ *   already merged and grouped; boxes stay <rect> (rounded rects are not converted anyway);
+ * - removeTitle, removeDesc, removeViewBox: needed for accessibility and scaling.
+ */
+const SVGO_PLUGINS = [
+  'removeComments',
+  'cleanupAttrs',
+  'mergeStyles',
+  'minifyStyles',
+  'cleanupNumericValues',
+  'convertColors',
+  'removeEmptyText',
+  'removeEmptyAttrs',
+  'removeEmptyContainers',
+  'collapseGroups',
+  'convertPathData',
+  'sortAttrs'
+] as const
 
 /** Drop unist positions so the tree depends only on the SVG text (and compares equal across runs). */
 function dropPositions(node: Root | RootContent): void {
@@ -237,22 +267,7 @@ export function renderSvg(input: RenderInput, options?: Readonly<Options> | null
     multipass: false,
     floatPrecision: settings.precision,
     js2svg: {pretty: false},
-    plugins: [
-      {
-        name: 'preset-default',
-        params: {
-          overrides: {
-            // Ids are already short, scoped by the prefix and referenced from aria-* and the CSS.
-            cleanupIds: false,
-            // Keep every rule in <style>: inlined rules would lose the media queries and the site's
-            // custom properties could no longer reach them.
-            inlineStyles: false,
-            // role="img" is what makes assistive technology read <title> and <desc> as one image.
-            removeUnknownsAndDefaults: {keepRoleAttr: true, keepAriaAttrs: true}
-          }
-        }
-      }
-    ]
+    plugins: SVGO_PLUGINS
   }).data
   const hast = fromHtml(optimized, {fragment: true})
   dropPositions(hast)

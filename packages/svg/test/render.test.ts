@@ -4,7 +4,7 @@ import {describe, expect, it} from 'vitest'
 import {labelBox} from '@upright/core'
 import {DARK_PALETTE, LIGHT_PALETTE, renderSvg, toHast} from '@upright/svg'
 import {fnv1a64, hashText} from '../src/hash.ts'
-import {elements, handLayout, islandRoutes, parseWithPython} from './support.ts'
+import {elements, handLayout, islandRoutes, parseManyWithPython, parseWithPython} from './support.ts'
 
 describe('public API', () => {
   it('exports exactly these names', async () => {
@@ -104,7 +104,7 @@ describe('ids', () => {
     const one = renderSvg(islandRoutes())
     const h = handLayout(['a', 'b'], ['Ferry', 'Pier'], [[0, 1]], [0, 1], [0, 0])
     const two = renderSvg(h)
-    const views = [parseWithPython(one.svg), parseWithPython(two.svg)]
+    const views = parseManyWithPython([one.svg, two.svg])
     for (const view of views) {
       const prefix = view.attrs['id']!
       expect(prefix).toMatch(/^upright-[0-9a-f]{12}$/)
@@ -120,11 +120,15 @@ describe('ids', () => {
 
   it('changes the prefix with the content and accepts a given one', () => {
     const h = islandRoutes()
-    const a = parseWithPython(renderSvg(h).svg).attrs['id']
-    const b = parseWithPython(renderSvg({...h, labels: [...h.labels.slice(0, 3), 'Lighthouse']}).svg).attrs['id']
+    const [viewA, viewB, given] = parseManyWithPython([
+      renderSvg(h).svg,
+      renderSvg({...h, labels: [...h.labels.slice(0, 3), 'Lighthouse']}).svg,
+      renderSvg(h, {idPrefix: 'fig-3'}).svg
+    ])
+    const a = viewA!.attrs['id']
+    const b = viewB!.attrs['id']
     expect(a).not.toBe(b)
-    const given = parseWithPython(renderSvg(h, {idPrefix: 'fig-3'}).svg)
-    expect(given.ids).toEqual(['fig-3', 'fig-3-title', 'fig-3-desc'])
+    expect(given!.ids).toEqual(['fig-3', 'fig-3-title', 'fig-3-desc'])
     expect(() => renderSvg(h, {idPrefix: '3 bad"'})).toThrow(RangeError)
   })
 })

@@ -88,13 +88,18 @@ export interface XmlView {
  * standalone SVG reader sees. Throws when the text is not well-formed XML.
  */
 export function parseWithPython(svg: string): XmlView {
+  return parseManyWithPython([svg])[0]!
+}
+
+/** parseWithPython for several SVGs in one Python process. */
+export function parseManyWithPython(svgs: string[]): XmlView[] {
   const script = `
 import json, sys, xml.etree.ElementTree as ET
-root = ET.fromstring(sys.stdin.read())
 ns = '{http://www.w3.org/2000/svg}'
 def text(el):
     return ''.join(el.itertext())
-print(json.dumps({
+def view(root):
+  return {
   'tag': root.tag,
   'attrs': dict(root.attrib),
   'title': text(root.find(ns + 'title')),
@@ -102,9 +107,10 @@ print(json.dumps({
   'ids': [el.get('id') for el in root.iter() if el.get('id') is not None],
   'texts': [text(el) if el.find(ns + 'tspan') is None else '\\n'.join(text(t) for t in el.findall(ns + 'tspan')) for el in root.iter(ns + 'text')],
   'styles': [text(el) for el in root.iter(ns + 'style')],
-}))
+  }
+print(json.dumps([view(ET.fromstring(svg)) for svg in json.loads(sys.stdin.read())]))
 `
-  const run = spawnSync('python3', ['-c', script], {input: svg, encoding: 'utf8'})
+  const run = spawnSync('python3', ['-c', script], {input: JSON.stringify(svgs), encoding: 'utf8'})
   if (run.status !== 0) throw new Error(`python3 could not parse the SVG: ${run.stderr}`)
-  return JSON.parse(run.stdout) as XmlView
+  return JSON.parse(run.stdout) as XmlView[]
 }
