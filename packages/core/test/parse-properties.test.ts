@@ -184,7 +184,7 @@ describe('parser round trip', () => {
         expect(parsedEdges.length).toBe(edges.size)
         expect(result.diagnostics.filter((diagnostic) => diagnostic.ruleId === 'duplicate-edge').length).toBe(pairs - edges.size)
       }),
-      {seed, numRuns: 400}
+      {seed, numRuns: 300}
     )
   })
 })
