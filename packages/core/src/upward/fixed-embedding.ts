@@ -43,8 +43,23 @@ export type UpwardEmbeddedResult =
   | {ok: false; reason: 'cyclic'; cycle: Cycle}
   /** The rotation at `vertex` interleaves incoming and outgoing edges. */
   | {ok: false; reason: 'not-bimodal'; vertex: number}
-  /** No outer face of this component admits the large-angle assignment; `component` lists its vertices. */
-  | {ok: false; reason: 'no-assignment'; component: number[]}
+  /**
+   * No outer face of this component admits the large-angle assignment; `component` lists its
+   * vertices. `hall`, when present, certifies it (Hall's condition fails, read off a minimum cut).
+   */
+  | {ok: false; reason: 'no-assignment'; component: number[]; hall?: HallViolation}
+
+/**
+ * Sources and sinks that cannot all get a large angle: every angle of every vertex listed lies in
+ * one of `faces`, and those faces hold fewer large angles than there are vertices. With outerFace
+ * set (an index into traceFaces of the embedding), the bound is Σ (n_f − 1) over the faces, plus 2
+ * if the outer face is among them; with outerFace −1 it is Σ (n_f − 1) + 2, whichever face is outer.
+ */
+export interface HallViolation {
+  vertices: number[]
+  faces: number[]
+  outerFace: number
+}
 
 /**
  * Throws RangeError when `emb` is not a planar rotation system of its graph (a caller's bug, not a
@@ -98,7 +113,11 @@ export function testUpwardEmbedded(
     const outer = solveComponent(
       g, emb, faces.faceOfDart, switches, verticesOf[c]!, facesOf[c]!, fixedOuter, assignedFace, faceNode, faceMark
     )
-    if (outer === -1) return {ok: false, reason: 'no-assignment', component: verticesOf[c]!}
+    if (typeof outer !== 'number') {
+      return outer.hall === undefined
+        ? {ok: false, reason: 'no-assignment', component: verticesOf[c]!}
+        : {ok: false, reason: 'no-assignment', component: verticesOf[c]!, hall: outer.hall}
+    }
     outerFaces[c] = outer
   }
 
@@ -152,7 +171,8 @@ function components(g: Digraph): Int32Array {
 
 /**
  * Solves one component; writes the chosen face of each of its sources and sinks into assignedFace
- * and returns the outer face, or -1 when no face works. faceNode and faceMark are scratch arrays
+ * and returns the outer face, or a failure with a Hall violation when one cut suffices to show it
+ * (a fixed outer face, or a shortfall of 3 or more with every face inner). faceNode and faceMark are scratch arrays
  * indexed by face, shared between components (faceNode entries are set here before use).
  */
 function solveComponent(
@@ -166,7 +186,7 @@ function solveComponent(
   assignedFace: Int32Array,
   faceNode: Int32Array,
   faceMark: Int32Array
-): number {
+): number | {hall?: HallViolation} {
   // Nodes: 0 = source, 1 = sink, then this component's sources/sinks, then its faces.
   const extremes = vertices.filter((v) => g.outStart[v + 1] === g.outStart[v] || g.inStart[v + 1] === g.inStart[v])
   const k = extremes.length
@@ -190,12 +210,36 @@ function solveComponent(
   for (let i = 0; i < compFaces.length; i++) {
     const cap = switches[compFaces[i]!]! / 2 - 1
     // cap < 0 only for a face without switches, i.e. bounded by a directed cycle (excluded earlier).
-    if (cap < 0) return -1
+    if (cap < 0) return {}
     sinkArc[i] = b.addArc(2 + k + i, 1, cap)
   }
   const base = b.build()
   const baseFlow = maxFlow(base, 0, 1)
-  if (baseFlow < k - 2) return -1
+  const hallFrom = (net: FlowNetwork, outer: number): HallViolation => {
+    // Minimum cut: the sources/sinks reachable from the source in the residual network have all
+    // their angles in reachable faces (a face adjacent to one of them is reachable), and those faces
+    // are saturated by flow that comes from these vertices only, some of which are unmatched.
+    const reach = residualReach(net, 0)
+    const vertices: number[] = []
+    const faces: number[] = []
+    for (let i = 0; i < k; i++) {
+      if (reach[2 + i] !== 1) continue
+      const v = extremes[i]!
+      vertices.push(v)
+      const rot = emb.rotation[v]!
+      for (let j = 0; j < rot.length; j++) {
+        const e = rot[j]!
+        const f = faceOfDart[g.head[e] === v ? 2 * e : 2 * e + 1]!
+        if (faceMark[f] === -(c0 + 1)) continue
+        faceMark[f] = -(c0 + 1)
+        faces.push(f)
+      }
+    }
+    faces.sort((x, y) => x - y)
+    return {vertices, faces, outerFace: outer}
+  }
+  const c0 = vertices[0]!
+  if (baseFlow < k - 2) return {hall: hallFrom(base, -1)}
   let candidates: number[]
   if (fixedOuter !== -1 && compFaces.includes(fixedOuter)) {
     candidates = [fixedOuter]
@@ -210,7 +254,10 @@ function solveComponent(
   for (const f0 of candidates) {
     const net: FlowNetwork = copyFlowNetwork(base)
     net.residual[sinkArc[faceNode[f0]! - 2 - k]!]! += 2
-    if (baseFlow + maxFlow(net, 0, 1, k - baseFlow) !== k) continue
+    if (baseFlow + maxFlow(net, 0, 1, k - baseFlow) !== k) {
+      if (candidates.length === 1 && f0 === fixedOuter) return {hall: hallFrom(net, f0)}
+      continue
+    }
     for (let i = 0; i < k; i++) {
       const node = 2 + i
       for (let p = net.start[node]!; p < net.start[node + 1]!; p++) {
@@ -223,7 +270,7 @@ function solveComponent(
     }
     return f0
   }
-  return -1
+  return {}
 }
 
 /** 1 for every node reachable from s along arcs with residual capacity. */

@@ -396,3 +396,48 @@ export function checkUpwardWitness(
   for (let v = 0; v < n; v++) if (!covered.has(v) && largeAngle[v] !== -1) return `isolated vertex ${v} has a large angle`
   return null
 }
+
+/**
+ * Independent check of a Hall-violation certificate for a fixed embedding: every listed vertex is a
+ * source or a sink, each of its angles lies in one of the listed faces (given by one dart each), and
+ * Σ (n_f − 1) over those faces, plus 2 if the outer face (outerDart's face) is among them, or plus 2
+ * outright when outerDart is −1 (any outer face), is less than the number of vertices.
+ */
+export function checkHallViolation(
+  n: number,
+  edges: readonly Edge[],
+  rotation: ReadonlyArray<ArrayLike<number>>,
+  vertices: readonly number[],
+  faceDarts: readonly number[],
+  outerDart: number
+): string | null {
+  if (vertices.length === 0) return 'no vertices'
+  const comps = componentsOf(n, edges)
+  const comp = comps.find((c) => c.vertices.includes(vertices[0]!))
+  if (comp === undefined) return 'vertex without edges'
+  const rot = new Map<number, number[]>()
+  for (const v of comp.vertices) rot.set(v, Array.from(rotation[v]!))
+  const fd = traceOwnFaces(edges, comp.edges, rot)
+  const listed = new Set<number>()
+  for (const d of faceDarts) {
+    const f = fd.faceOf.get(d)
+    if (f === undefined) return `dart ${d} is not in the component`
+    if (listed.has(f)) return 'a face is listed twice'
+    listed.add(f)
+  }
+  if (new Set(vertices).size !== vertices.length) return 'a vertex is listed twice'
+  for (const v of vertices) {
+    const r = rot.get(v)
+    if (r === undefined) return `vertex ${v} is in another component`
+    if (!(r.every((e) => edges[e]![0] === v) || r.every((e) => edges[e]![1] === v))) return `vertex ${v} is neither source nor sink`
+    for (const e of r) {
+      const dIn = edges[e]![1] === v ? 2 * e : 2 * e + 1
+      if (!listed.has(fd.faceOf.get(dIn)!)) return `an angle of ${v} lies outside the listed faces`
+    }
+  }
+  let bound = 0
+  for (const f of listed) bound += fd.switches[f]! / 2 - 1
+  if (outerDart === -1) bound += 2
+  else if (listed.has(fd.faceOf.get(outerDart)!)) bound += 2
+  return bound < vertices.length ? null : `the faces can take ${bound} large angles, enough for ${vertices.length}`
+}
