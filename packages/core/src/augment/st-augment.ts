@@ -1,7 +1,7 @@
 /**
  * st-augmentation of an upward embedding by face saturation (Bertolazzi, Di Battista, Liotta &
- * Mannino, "Upward drawings of triconnected digraphs", Algorithmica 12, 1994, section 4; the same
- * construction is described in Di Battista, Eades, Tamassia & Tollis, "Graph Drawing", 1999, ch. 6).
+ * Mannino, "Upward drawings of triconnected digraphs", Algorithmica 12, 1994: an upward embedding
+ * with its large-angle assignment is completed into a planar st-digraph by saturating faces).
  *
  * Walk a face and list its switch angles, each marked L (the large angle of its source or sink) or
  * S. Whenever three consecutive switches read L, S, S, say x, y, z, the face can be split by an edge

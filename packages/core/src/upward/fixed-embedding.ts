@@ -1,13 +1,13 @@
 /**
  * Upward planarity of a digraph with a FIXED planar embedding (Bertolazzi, Di Battista, Liotta &
- * Mannino, "Upward drawings of triconnected digraphs", Algorithmica 12, 1994, section 3).
+ * Mannino, "Upward drawings of triconnected digraphs", Algorithmica 12, 1994).
  *
  * With every vertex bimodal, call an angle of a face a switch when both of its edges point into the
  * vertex or both point out of it; a face with 2·n_f switch angles needs n_f − 1 large angles if it
  * is inner and n_f + 1 if it is the outer face, and only a source or a sink can have a large angle,
  * exactly one each. The embedding (with outer face f0) is upward iff such an assignment exists.
  * Angles are counted, not faces: a cut vertex can meet one face in several angles and a degree-1
- * vertex has one 360° angle, a switch (see /work/shared facts; checked against a brute-force oracle
+ * vertex has one 360° angle, a switch (checked against a brute-force oracle
  * in the tests). By Euler's formula the capacities add up to the number of sources plus sinks, so
  * the assignment is a maximum bipartite b-matching, solved as a flow:
  *   source -> each source/sink of G (capacity 1) -> each face where it has an angle (capacity 1)
