@@ -101,3 +101,55 @@ if (obs.length > 0) {
   const sizes = obs.map((o) => o.size)
   console.log(`edges per obstruction: min ${Math.min(...sizes)}, median ${stats(sizes).median}, max ${Math.max(...sizes)}; failed: ${sizes.filter((s) => s < 0).length}`)
 }
+
+// --stress: harder inputs than the North set, to see how the budget holds. Random orientations
+// (random vertex order) of (a) the planar Rome graphs (/work/shared/data/rome, see its SOURCE.md),
+// every other file, and (b) random planar st-graphs' underlying graphs with a random share of edges.
+if (process.argv.includes('--stress')) {
+  const {mulberry32, randomPlanarStGraph} = await import('../packages/core/test/support/random-st.ts')
+  const orient = (n: number, edges: ReadonlyArray<readonly [number, number]>, rnd: () => number) => {
+    const rank = Array.from({length: n}, (_, i) => i)
+    for (let i = n - 1; i > 0; i--) {
+      const j = Math.floor(rnd() * (i + 1))
+      ;[rank[i], rank[j]] = [rank[j]!, rank[i]!]
+    }
+    return createDigraph(n, edges.map(([a, b]) => (rank[a]! < rank[b]! ? [a, b] : [b, a]) as [number, number]))
+  }
+  const report = (name: string, gs: Digraph[]) => {
+    const tally: Record<string, number> = {}
+    const ms: number[] = []
+    for (const g of gs) {
+      const t0 = performance.now()
+      const r = testUpwardPlanarity(g, {maxMillis: budget})
+      ms.push(performance.now() - t0)
+      const key = r.status === 'not-upward' ? r.reason : r.status
+      tally[key] = (tally[key] ?? 0) + 1
+    }
+    console.log(line(name, ms), JSON.stringify(tally))
+  }
+  console.log(`\nstress (one run each, budget ${budget} ms)`)
+  console.log(header)
+  const romeDir = '/work/shared/data/rome'
+  const rnd = mulberry32(5)
+  const rome = readdirSync(romeDir).filter((f) => f.endsWith('.graphml')).sort().filter((_, i) => i % 2 === 0)
+  const romeGraphs: Digraph[] = []
+  for (const f of rome) {
+    const text = readFileSync(`${romeDir}/${f}`, 'utf8')
+    const ids = new Map<string, number>()
+    for (const m of text.matchAll(/<node\s[^>]*\bid="([^"]+)"/g)) ids.set(m[1]!, ids.size)
+    const edges = [...text.matchAll(/<edge\s[^>]*>/g)].map((m) => [ids.get(/\bsource="([^"]+)"/.exec(m[0])![1]!)!, ids.get(/\btarget="([^"]+)"/.exec(m[0])![1]!)!] as const)
+    const g = orient(ids.size, edges, rnd)
+    if (testPlanarity(g).planar) romeGraphs.push(g)
+  }
+  report('rome planar, oriented', romeGraphs)
+  for (const n of [20, 40, 60]) {
+    const gs: Digraph[] = []
+    for (let seed = 1; seed <= 40; seed++) {
+      const st = randomPlanarStGraph(seed * 7 + n, n)
+      const r = mulberry32(seed)
+      const keep = 0.5 + 0.5 * r()
+      gs.push(orient(st.vertexCount, st.edges.filter(() => r() < keep), r))
+    }
+    report(`planar n=${n}, oriented`, gs)
+  }
+}

@@ -6,12 +6,15 @@
  * walk the edges once, dropping each edge whose removal keeps the rest non-upward. A kept edge e was
  * needed at its turn: S − e was upward there, and the final set minus e is a subgraph of S − e, so it
  * is upward too (upward planarity is closed under taking subgraphs). For a nonplanar graph the walk
- * starts from the planarity test's Kuratowski subgraph, which is already non-upward and small.
+ * starts from the planarity test's Kuratowski subgraph, which is already non-upward and small; for a
+ * planar graph, from the reduced core (reduce.ts) of a failing component with its merged edges
+ * expanded back into paths, which is not upward either since the reductions preserve the answer.
  * Time: one exact test per edge of the starting set, all within one budget.
  */
 import {createDigraph, type Digraph} from '../graph/digraph.ts'
 import {testPlanarity} from '../planarity/test-planarity.ts'
-import {testUpwardPlanarity, type UpwardBudget} from './test-upward-planarity.ts'
+import {reduceComponent} from './reduce.ts'
+import {testUpwardPlanarity, weakComponents, type UpwardBudget} from './test-upward-planarity.ts'
 
 export type MinimalObstructionResult = {ok: true; edges: number[]} | {ok: false; reason: 'budget' | 'upward'}
 
@@ -20,6 +23,7 @@ export function findMinimalObstruction(g: Digraph, budget?: Readonly<UpwardBudge
   const deadline = now() + (budget?.maxMillis ?? 3000)
   const left = (): UpwardBudget => ({maxMillis: Math.max(0, deadline - now()), now})
 
+  const sub = (edges: readonly number[]) => createDigraph(g.vertexCount, edges.map((e) => [g.tail[e]!, g.head[e]!] as const))
   let keep: number[]
   const planar = testPlanarity(g)
   if (!planar.planar) keep = [...planar.kuratowski.edges]
@@ -28,8 +32,16 @@ export function findMinimalObstruction(g: Digraph, budget?: Readonly<UpwardBudge
     if (whole.status === 'undecided') return {ok: false, reason: 'budget'}
     if (whole.status === 'upward') return {ok: false, reason: 'upward'}
     keep = Array.from({length: g.edgeCount}, (_, e) => e)
+    for (const comp of weakComponents(g)) {
+      const core = expandedCore(g, comp)
+      const r = testUpwardPlanarity(sub(core), left())
+      if (r.status === 'undecided') return {ok: false, reason: 'budget'}
+      if (r.status === 'not-upward') {
+        keep = core
+        break
+      }
+    }
   }
-  const sub = (edges: readonly number[]) => createDigraph(g.vertexCount, edges.map((e) => [g.tail[e]!, g.head[e]!] as const))
   for (let i = 0; i < keep.length; ) {
     if (now() > deadline) return {ok: false, reason: 'budget'}
     const without = keep.filter((_, j) => j !== i)
@@ -39,4 +51,20 @@ export function findMinimalObstruction(g: Digraph, budget?: Readonly<UpwardBudge
     else i++
   }
   return {ok: true, edges: keep}
+}
+
+/** g's edges making up the reduced core of one component: merged edges stand for paths of g. */
+function expandedCore(g: Digraph, comp: readonly number[]): number[] {
+  const red = reduceComponent(g, comp)
+  const parts = new Map<number, [number, number]>()
+  for (const s of red.steps) if (s.kind === 'subdivide') parts.set(s.merged, [s.inEdge, s.outEdge])
+  const out: number[] = []
+  const stack = [...red.coreEdges]
+  while (stack.length > 0) {
+    const e = stack.pop()!
+    const p = parts.get(e)
+    if (p === undefined) out.push(e)
+    else stack.push(...p)
+  }
+  return out.sort((x, y) => x - y)
 }
