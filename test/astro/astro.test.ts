@@ -6,13 +6,11 @@
  * Astro writes an intermediate server build under the working directory when the output folder is
  * outside it, so each build goes to a fresh folder under test/astro/dist (git-ignored), removed after.
  */
-import {existsSync, mkdirSync, mkdtempSync, readFileSync, readdirSync, rmSync, writeFileSync} from 'node:fs'
+import {existsSync, mkdirSync, mkdtempSync, readFileSync, readdirSync, rmSync} from 'node:fs'
 import path from 'node:path'
 import {fileURLToPath} from 'node:url'
 import {afterAll, beforeAll, describe, expect, it} from 'vitest'
-import {checkDiagram} from '../../packages/core/src/index.ts'
 import {demoGraphs} from '../demo/demo-graphs.ts'
-import {buildSite} from '../../site-demo/lib/build-site.ts'
 
 const here = path.dirname(fileURLToPath(import.meta.url))
 const repo = path.resolve(here, '../..')
@@ -21,9 +19,6 @@ const pageNames = readdirSync(pagesDir)
   .filter((f) => f.endsWith('.md'))
   .map((f) => f.slice(0, -3))
   .sort()
-
-/** Whether the upward test is part of the build yet (until then every diagram is `undecided`). */
-const upwardAvailable = checkDiagram('a -> b').status === 'upward'
 
 let build: typeof import('astro').build
 let siteConfig: typeof import('./site-config.mjs').siteConfig
@@ -75,52 +70,34 @@ describe('Astro 5.18 with remark-directive and remark-upright', () => {
     expect(thrown.message).toContain('form a cycle `proposal -> lab_check -> copy -> publish -> proposal`')
   })
 
-  it('runs the plugin over every demo page (fail mode)', async () => {
-    const {outDir, error} = await astroBuild('demo-fail', {onFailure: 'fail'})
-    if (upwardAvailable) {
-      expect(error).toBeUndefined()
-      for (const name of pageNames) expect(existsSync(path.join(outDir, name, 'index.html')), name).toBe(true)
-    } else {
-      // Until the upward test lands, every demo diagram is `undecided`, which fails the build: proof
-      // that Astro handed the demo's blocks to the plugin.
-      expect((error as ThrownMessage).ruleId).toBe('check-unavailable')
-      expect((error as ThrownMessage).source).toBe('upright')
-    }
+  it('keeps a broken block as written in warn mode, and the build goes on', async () => {
+    const {outDir, error} = await astroBuild('broken-warn', {srcDir: './broken-src', onFailure: 'warn'})
+    expect(error).toBeUndefined()
+    const html = readFileSync(path.join(outDir, 'cycle', 'index.html'), 'utf8')
+    expect(html).not.toContain('<svg')
+    expect(count(html, '<pre'), 'the fence, highlighted as plain text').toBe(1)
+    expect(html).toContain('publish')
+    expect(html).toContain('proposal')
   })
 
-  it('writes every demo page; each diagram is inlined when the plugin draws, or kept as written', async () => {
-    const {outDir, error} = await astroBuild('demo-warn', {onFailure: 'warn'})
+  it('writes every demo page with each diagram drawn as an inline SVG figure', async () => {
+    const {outDir, error} = await astroBuild('demo', {onFailure: 'fail'})
     expect(error).toBeUndefined()
     const graphs = demoGraphs(pagesDir)
-    const draws = await pluginDraws()
     for (const name of pageNames) {
       const file = path.join(outDir, name, 'index.html')
       expect(existsSync(file), `${name}/index.html`).toBe(true)
       const html = readFileSync(file, 'utf8')
       const expected = graphs.filter((g) => g.page === `${name}.md`).length
-      expect(expected).toBeGreaterThan(0)
-      if (draws) {
-        expect(count(html, '<svg'), `${name}: one inline SVG per diagram`).toBe(expected)
-      } else {
-        // Kept as written: Shiki renders each fence as a <pre>; directives stay as paragraphs.
-        expect(html).not.toContain('<svg')
-        for (const g of graphs.filter((g) => g.page === `${name}.md`)) {
-          expect(html, `${name}: the text of the diagram at line ${g.line}`).toContain(g.vertices[0]!)
-        }
-      }
+      expect(expected, name).toBeGreaterThan(0)
+      expect(count(html, '<svg'), `${name}: one inline SVG per diagram`).toBe(expected)
+      expect(count(html, '<figure'), `${name}: one figure per diagram`).toBe(expected)
+      // Nothing was left for the highlighter: the demo pages have no other code blocks, and no
+      // diagram survived as one.
+      expect(html, name).not.toContain('<pre')
     }
   })
 })
-
-/** Whether remark-upright replaces a passing block with a drawing yet (probed with the plain build). */
-async function pluginDraws(): Promise<boolean> {
-  if (!upwardAvailable) return false
-  const probe = path.join(runs, 'probe')
-  mkdirSync(path.join(probe, 'pages'), {recursive: true})
-  writeFileSync(path.join(probe, 'pages', 'probe.md'), '```upright\na -> b\n```\n')
-  const result = await buildSite({pagesDir: path.join(probe, 'pages'), outDir: path.join(probe, 'out')})
-  return result.ok && readFileSync(path.join(probe, 'out', 'probe.html'), 'utf8').includes('<svg')
-}
 
 function count(text: string, needle: string): number {
   return text.split(needle).length - 1
