@@ -49,6 +49,8 @@ export function searchUpwardEmbedding(
   head: ArrayLike<number>,
   goal: SearchGoal,
   expired: () => boolean,
+  /** The vertex the embedding grows from; the order of the search depends on it, not its answer. */
+  root = 0,
 ): SearchOutcome {
   const m = tail.length
   const adj: number[][] = Array.from({length: n}, () => [])
@@ -310,7 +312,7 @@ export function searchUpwardEmbedding(
 
   try {
     if (n === 0) return {found: true, rot, angles: {large: new Int32Array(0), outerVertex: -1}, nodes}
-    placedV[0] = 1
+    placedV[root] = 1
     if (go(0)) {
       const r = result as unknown as {rot: number[][]; angles: LargeAngles}
       return {found: true, rot: r.rot, angles: r.angles, nodes}

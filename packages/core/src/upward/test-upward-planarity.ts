@@ -161,16 +161,31 @@ function decideCore(red: Reduction, expired: () => boolean): CoreDecision {
     }
   }
 
-  const out = searchUpwardEmbedding(k, tail, head, 'upward', expired)
-  if (out.found === 'budget') return {kind: 'budget', nodes: out.nodes}
+  // Restarts (common practice against the heavy tails of backtracking search; Gomes, Selman & Kautz,
+  // AAAI 1998): runs capped at 256, 512, 1024, ... nodes, each grown from another root vertex, until
+  // one finds an embedding or finishes its search (a finished search is a proof of "no").
+  let spent = 0
+  let out: ReturnType<typeof searchUpwardEmbedding>
+  for (let attempt = 0; ; attempt++) {
+    let left = 256 * 2 ** attempt
+    const root = (attempt * 7919) % k
+    let capped = false
+    out = searchUpwardEmbedding(k, tail, head, 'upward', () => {
+      if (--left < 0) capped = true
+      return capped || expired()
+    }, root)
+    spent += out.nodes
+    if (out.found !== 'budget') break
+    if (!capped) return {kind: 'budget', nodes: spent}
+  }
   if (out.found) {
-    return {kind: 'yes', method: 'search', rot: out.rot, large: out.angles.large, outerVertex: out.angles.outerVertex, nodes: out.nodes}
+    return {kind: 'yes', method: 'search', rot: out.rot, large: out.angles.large, outerVertex: out.angles.outerVertex, nodes: spent}
   }
   // If the assignment bound never cut, the search met only non-bimodal dead ends: no bimodal
   // embedding exists. Otherwise a bimodal-only search, capped at the same effort, may tell; when it
   // cannot, the weaker reason is still true.
   let reason: 'not-bimodal' | 'no-upward-embedding' = 'not-bimodal'
-  let nodes = out.nodes
+  let nodes = spent
   if (out.assignmentPruned) {
     let left = out.nodes
     const bimodal = searchUpwardEmbedding(k, tail, head, 'bimodal', () => --left < 0 || expired())
