@@ -216,10 +216,12 @@ function buildTree(input: RenderInput, settings: Settings): Root {
         rx: f(Math.min(8, margin)),
         fill: light.background
       }),
-      s('g', {className: [CLASS.lines], fill: 'none', stroke: light.edgeStroke, strokeWidth: EDGE_STROKE_WIDTH, strokeLinecap: 'round', strokeLinejoin: 'round'}, lineData ? [s('path', {d: lineData})] : []),
+      lineData
+        ? s('path', {className: [CLASS.lines], d: lineData, fill: 'none', stroke: light.edgeStroke, strokeWidth: EDGE_STROKE_WIDTH, strokeLinecap: 'round', strokeLinejoin: 'round'})
+        : null,
       s('g', {className: [CLASS.boxes], fill: light.nodeFill, stroke: light.nodeStroke, strokeWidth: NODE_STROKE_WIDTH}, boxes),
       s('g', {className: [CLASS.labels], fill: light.nodeText, fontFamily: FONT_STACK, fontSize: f(fontSize), textAnchor: 'middle'}, labels),
-      s('g', {className: [CLASS.arrows], fill: light.arrowFill}, arrowData ? [s('path', {d: arrowData})] : [])
+      arrowData ? s('path', {className: [CLASS.arrows], d: arrowData, fill: light.arrowFill}) : null
     ]
   )
   return {type: 'root', children: [svg]}
@@ -234,8 +236,9 @@ function buildTree(input: RenderInput, settings: Settings): Root {
  * - removeUnknownsAndDefaults, removeHiddenElems, removeUselessStrokeAndFill: we write no unknown,
  *   hidden or useless markup, and they match the stylesheet against every element, which costs more
  *   than the rest of the optimization together on large diagrams (and the first would drop role="img");
- * - mergePaths, moveElemsAttrsToGroup, moveGroupAttrsToElems, convertShapeToPath: the tree is built
- *   already merged and grouped; boxes stay <rect> (rounded rects are not converted anyway);
+ * - mergePaths, moveElemsAttrsToGroup, moveGroupAttrsToElems, collapseGroups, convertShapeToPath:
+ *   the tree is built already merged and grouped, and its structure is documented for site CSS
+ *   (`.upright-boxes rect` must hold even for a one-vertex diagram); boxes stay <rect>;
  * - removeTitle, removeDesc, removeViewBox: needed for accessibility and scaling.
  */
 const SVGO_PLUGINS = [
@@ -248,7 +251,6 @@ const SVGO_PLUGINS = [
   'removeEmptyText',
   'removeEmptyAttrs',
   'removeEmptyContainers',
-  'collapseGroups',
   'convertPathData',
   'sortAttrs'
 ] as const
@@ -267,7 +269,7 @@ export function renderSvg(input: RenderInput, options?: Readonly<Options> | null
     multipass: false,
     floatPrecision: settings.precision,
     js2svg: {pretty: false},
-    plugins: SVGO_PLUGINS
+    plugins: [...SVGO_PLUGINS]
   }).data
   const hast = fromHtml(optimized, {fragment: true})
   dropPositions(hast)

@@ -66,13 +66,13 @@ export const CLASS = {
   root: 'upright',
   /** The card (<rect>) behind the drawing. */
   background: 'upright-background',
-  /** <g> of the edge lines (<path>). */
+  /** The one <path> that holds every edge line (one subpath an edge). */
   lines: 'upright-lines',
   /** <g> of the vertex boxes (<rect>). */
   boxes: 'upright-boxes',
   /** <g> of the labels (<text>). */
   labels: 'upright-labels',
-  /** <g> of the arrowheads (<path>). */
+  /** The one <path> that holds every arrowhead. */
   arrows: 'upright-arrows'
 } as const
 
