@@ -8,7 +8,7 @@
  * number of sources and sinks, so this is a perfect b-matching. Here it serves the embedding search as
  * a bound on partial embeddings, so all outer faces are tried at once: one maximum b-matching with
  * every face at n_f − 1, which leaves exactly two sources/sinks unplaced, then for each face f0 at most
- * two augmenting paths with f0's capacity raised by 2.
+ * two augmenting paths with f0's capacity raised by 2, undone from a log when they fail.
  * Time: O(k·a) for the base matching and O(F·a) for the outer-face trials, with k sources and sinks,
  * a their angles and F faces.
  */
@@ -129,7 +129,8 @@ export function assignLargeAngles(
     }
     return false
   }
-  const place = (x: number, c: number) => {
+  const log: number[] = [] // (x, previous choice) pairs, to undo a failed outer-face trial
+  const move = (x: number, c: number) => {
     const old = match[x]!
     if (old !== -1) {
       const f = cand[x]![old]![0]
@@ -137,10 +138,16 @@ export function assignLargeAngles(
       list.splice(list.indexOf(x), 1)
       load[f]!--
     }
-    const f = cand[x]![c]![0]
     match[x] = c
-    members[f]!.push(x)
-    load[f]!++
+    if (c !== -1) {
+      const f = cand[x]![c]![0]
+      members[f]!.push(x)
+      load[f]!++
+    }
+  }
+  const place = (x: number, c: number) => {
+    log.push(x, match[x]!)
+    move(x, c)
   }
   const free: number[] = []
   for (let x = 0; x < k; x++) {
@@ -148,12 +155,10 @@ export function assignLargeAngles(
     if (!augment(x)) free.push(x)
   }
   if (free.length !== 2) return null // more than two left over: no outer face can absorb them
-  const saveMatch = match.slice()
-  const saveLoad = load.slice()
-  const saveMembers = members.map((l) => l.slice())
+  if (!free.every((x) => cand[x]!.length > 0)) return null
   for (let f0 = 0; f0 < faces; f0++) {
-    if (!free.every((x) => cand[x]!.length > 0)) return null
     cap[f0]! += 2
+    log.length = 0
     stamp++
     let ok = augment(free[0]!)
     if (ok) {
@@ -165,9 +170,10 @@ export function assignLargeAngles(
       return {large, outerVertex: xs[members[f0]![0]!]!}
     }
     cap[f0]! -= 2
-    match.set(saveMatch)
-    load.set(saveLoad)
-    for (let f = 0; f < faces; f++) members[f] = saveMembers[f]!.slice()
+    while (log.length > 0) {
+      const old = log.pop()!
+      move(log.pop()!, old)
+    }
   }
   return null
 }
