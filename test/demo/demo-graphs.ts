@@ -71,7 +71,9 @@ function lineIndex(text: string): Parameters<typeof findDiagramBlocks>[1] {
  */
 export const witnessEdges: Readonly<Record<string, ReadonlyArray<[string, string]>>> = {
   // Compost bay 2 hangs off drying room B inside the face dry_b, thresh_1, winnow, thresh_2.
-  'seed-lots.md:12': [['bay_2', 'winnow']]
+  'seed-lots.md:12': [['bay_2', 'winnow']],
+  // The data-quality alerts hang off return facts inside the face f_returns, r_circ, board, r_quality.
+  'data.md:47': [['dq', 'board']]
 }
 
 export interface NetworkxVerdict {

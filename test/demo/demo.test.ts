@@ -108,8 +108,9 @@ describe('demo site (plain unified build)', () => {
     // At least two need a careful embedding: several sources and several sinks.
     const interleaved = verdicts.filter((v) => v.sources >= 3 && v.sinks >= 3)
     expect(interleaved.length).toBeGreaterThanOrEqual(2)
-    // And at least one has a source or sink that no drawing can put on the outer face with the others.
-    expect(verdicts.some((v) => !v.stClosurePlanar)).toBe(true)
+    // And at least two have an S/T closure that is not planar: no embedding has every source and sink
+    // on one face, so the drawing must put a sink inside a face (their witnesses need extra edges).
+    expect(verdicts.filter((v) => !v.stClosurePlanar).length).toBeGreaterThanOrEqual(2)
   })
 
   it('every demo diagram passes `upright check`', async () => {
