@@ -3,6 +3,7 @@
  *
  * Pipeline (a layered drawing in the manner of Sugiyama, Tagawa, Toda, IEEE SMC 11, 1981, with the
  * crossing-minimisation step replaced by the embedding, which makes it exact):
+ * 0. Added edges that H can do without are dropped (prune-augmentation.ts).
  * 1. Layers of H (layering.ts): every edge of H points to a higher layer; only G's edges count towards
  *    the span that is minimised.
  * 2. Every G edge spanning several layers gets a bend object on each layer in between; H's added
@@ -13,14 +14,16 @@
  * 5. Routing: layers are bands as tall as their tallest box, boxes centred in the band. An edge leaves
  *    its tail box on the side facing the flow at a port (ports spread in embedding order, centred), goes
  *    straight along the flow to the band's edge when the box is shorter than the band, crosses the gap
- *    straight to the next layer, runs straight through a bend band, and enters its head box the same way.
- *    Collinear points are dropped, so an edge is straight wherever its ports and bends line up.
+ *    straight to the next layer, passes each bend layer as a vertical run or, where it stays inside the
+ *    bend's own column, as one point, and enters its head box the same way. Collinear runs along the
+ *    flow are merged, so an edge is straight wherever its ports and bends line up.
  * 6. The internal drawing (u across, v along the flow) is turned into SVG coordinates for the flow.
  *
- * Why no crossings: inside a band each object keeps to its own cross-flow interval (its box, or its
- * bend line), and these intervals are disjoint; between two bands every segment runs from the upper
- * line of one band to the lower line of the next, and the points on both lines are strictly increasing
- * in the same (visibility) order, so two such segments cannot meet. Why upward: every segment strictly
+ * Why no crossings: inside a band each object keeps strictly to its own column (halfway to each
+ * neighbour), and columns are disjoint; between two bands every segment crosses the upper line of
+ * one band and the lower line of the next, each inside its object's column (ports of one box in port
+ * order), so the crossing points on both lines are strictly increasing in the same (visibility)
+ * order and two such segments cannot meet. Why upward: every segment strictly
  * increases v (bands have non-negative height, gaps positive).
  *
  * Time: O((n + m + B) log(n + m + B)) for B bend objects (one sort of each layer), plus the linear
@@ -30,6 +33,7 @@
 import type {Digraph} from '../graph/digraph.ts'
 import {layerByWeightedSpan} from './layering.ts'
 import {dualOrder} from './dual-order.ts'
+import {pruneAugmentation} from './prune-augmentation.ts'
 import {assignCoordinates, type LayeredGraph} from './coordinates.ts'
 import {defaultSpacing, type Flow, type Layout, type LayoutInput, type Spacing} from './types.ts'
 
@@ -39,11 +43,12 @@ const MIN_GAP = 1
 const SEGMENT_WEIGHT = [1, 2, 8] as const
 
 export function layoutUpward(input: LayoutInput): Layout {
-  const {graph: g, st, boxes, flow} = input
+  const {graph: g, boxes, flow} = input
+  checkInput(g, input.st.graph, boxes.length)
+  const st = pruneAugmentation(input.st, g.edgeCount)
   const h = st.graph
   const n = g.vertexCount
   const m = g.edgeCount
-  checkInput(g, h, boxes.length)
   const spacing: Spacing = {
     layer: Math.max(MIN_GAP, input.spacing?.layer ?? defaultSpacing.layer),
     node: Math.max(MIN_GAP, input.spacing?.node ?? defaultSpacing.node),
@@ -164,6 +169,23 @@ export function layoutUpward(input: LayoutInput): Layout {
   for (let l = 0; l < layerCount; l++) {
     centre[l] = l === 0 ? bandHalf[0]! : centre[l - 1]! + bandHalf[l - 1]! + spacing.layer + bandHalf[l]!
   }
+  // Each object's column: from halfway to its left neighbour to halfway to its right neighbour. In a
+  // band, everything belonging to an object (its box and ports, or its bend) stays strictly inside.
+  const colLeft = new Float64Array(objectCount).fill(-Infinity)
+  const colRight = new Float64Array(objectCount).fill(Infinity)
+  for (const layer of layers) {
+    for (let i = 1; i < layer.length; i++) {
+      const a = layer[i - 1]!
+      const b = layer[i]!
+      const mid = (x[a]! + half[a]! + x[b]! - half[b]!) / 2
+      colRight[a] = mid
+      colLeft[b] = mid
+    }
+  }
+  const within = (o: number, u: number): boolean => colLeft[o]! < u && u < colRight[o]!
+  const uAt = (p: readonly [number, number], q: readonly [number, number], v: number): number =>
+    p[0] + ((q[0] - p[0]) * (v - p[1])) / (q[1] - p[1])
+
   const routes: Array<Array<[number, number]>> = []
   for (let e = 0; e < m; e++) {
     const t = g.tail[e]!
@@ -174,16 +196,43 @@ export function layoutUpward(input: LayoutInput): Layout {
     const pu = x[t]! + tailPort[e]!
     pts.push([pu, centre[lt]! + halfV[t]!])
     if (halfV[t]! < bandHalf[lt]!) pts.push([pu, centre[lt]! + bandHalf[lt]!])
+    const qu = x[hd]! + headPort[e]!
+    // Where the edge enters band l from below (the bend's lower point, or the head's port or stub).
+    const entry = (o: number): [number, number] => {
+      if (o < bendStart[e + 1]!) {
+        const l = layerOf[o]!
+        return [x[o]!, centre[l]! - bandHalf[l]!]
+      }
+      return [qu, centre[lh]! - bandHalf[lh]!]
+    }
+    // A bend crosses its band as one vertical run, or as a single point at the band's centre line
+    // when both segments through that point stay inside the bend's column within the band (and,
+    // if the previous bend was also reduced to a point, inside that one's column too).
+    let prevPoint = -1
     for (let o = bendStart[e]!; o < bendStart[e + 1]!; o++) {
       const l = layerOf[o]!
-      if (bandHalf[l]! > 0) {
-        pts.push([x[o]!, centre[l]! - bandHalf[l]!])
-        pts.push([x[o]!, centre[l]! + bandHalf[l]!])
-      } else {
+      const hb = bandHalf[l]!
+      if (hb === 0) {
         pts.push([x[o]!, centre[l]!])
+        prevPoint = -1
+        continue
+      }
+      const mid: [number, number] = [x[o]!, centre[l]!]
+      const before = pts[pts.length - 1]!
+      const after = entry(o + 1)
+      const single =
+        within(o, uAt(before, mid, centre[l]! - hb)) &&
+        within(o, uAt(mid, after, centre[l]! + hb)) &&
+        (prevPoint < 0 || within(prevPoint, uAt(before, mid, centre[l - 1]! + bandHalf[l - 1]!)))
+      if (single) {
+        pts.push(mid)
+        prevPoint = o
+      } else {
+        pts.push([x[o]!, centre[l]! - hb])
+        pts.push([x[o]!, centre[l]! + hb])
+        prevPoint = -1
       }
     }
-    const qu = x[hd]! + headPort[e]!
     if (halfV[hd]! < bandHalf[lh]!) pts.push([qu, centre[lh]! - bandHalf[lh]!])
     pts.push([qu, centre[lh]! - halfV[hd]!])
     routes.push(dropStraightThrough(pts))
