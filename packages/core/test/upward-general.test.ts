@@ -125,6 +125,35 @@ describe('reduction lemmas against the brute-force oracle', () => {
   })
 })
 
+describe('input shapes', () => {
+  it('parallel edges do not change the answer (a copy drawn beside its twin; common practice)', () => {
+    const rnd = mulberry32(3)
+    for (let k = 0; k < 300; k++) {
+      const n = 4 + Math.floor(rnd() * 4)
+      const edges = randomDag(rnd, n, 0.3 + 0.4 * rnd(), 'dag')
+      if (edges.length === 0) continue
+      const doubled = [...edges, ...edges.filter(() => rnd() < 0.4)]
+      expect(upward(n, doubled), JSON.stringify(doubled)).toBe(upward(n, edges))
+    }
+  })
+
+  it('several components: upward iff each is; isolated vertices take no part', () => {
+    const wheel = parse('0->2, 0->3, 0->4, 1->2, 1->3, 1->4, 2->3, 2->4')
+    const path = parse('5->6, 6->7')
+    expect(upward(9, path)).toBe(true)
+    expect(upward(9, [...path, ...parse('8->5')])).toBe(true)
+    expect(decide(9, [...path, ...wheel]).status).toBe('not-upward')
+    const r = decide(12, [...path, ...parse('9->10, 9->11, 10->11')])
+    expect(r.status).toBe('upward')
+    if (r.status === 'upward') expect(r.upward.outerFaces.length).toBe(2)
+  })
+
+  it('rejects a cyclic input as a caller error', () => {
+    expect(() => testUpwardPlanarity(createDigraph(2, [[0, 1], [1, 0]]))).toThrow(RangeError)
+    expect(() => testUpwardPlanarity(createDigraph(1, [[0, 0]]))).toThrow(RangeError)
+  })
+})
+
 describe('budget', () => {
   it('answers undecided, never a guess, when the clock runs out', () => {
     const edges = parse('1->0, 1->2, 2->0, 3->1, 3->2, 3->4, 4->1, 4->2, 4->8, 5->4, 5->8, 6->4, 6->5, 6->7, 7->4, 7->8')

@@ -18,6 +18,7 @@ import {testUpwardPlanarity, weakComponents, type UpwardBudget} from './test-upw
 
 export type MinimalObstructionResult = {ok: true; edges: number[]} | {ok: false; reason: 'budget' | 'upward'}
 
+/** g must be acyclic (RangeError otherwise, as for testUpwardPlanarity). */
 export function findMinimalObstruction(g: Digraph, budget?: Readonly<UpwardBudget>): MinimalObstructionResult {
   const now = budget?.now ?? (() => performance.now())
   const deadline = now() + (budget?.maxMillis ?? 3000)

@@ -25,6 +25,7 @@
 import {createDigraph, type Digraph} from '../graph/digraph.ts'
 import type {RotationSystem} from '../embedding/rotation-system.ts'
 import {traceFaces} from '../embedding/rotation-system.ts'
+import {findCycle} from '../acyclic/find-cycle.ts'
 import {testPlanarity} from '../planarity/test-planarity.ts'
 import {reduceComponent, type Reduction} from './reduce.ts'
 import {growBack, type AngleEmbedding} from './grow-back.ts'
@@ -59,7 +60,13 @@ export type UpwardTestResult =
 
 const methodRank: readonly UpwardMethod[] = ['reduced', 'st', 'sources-sinks', 'first-embedding', 'search', 'planarity']
 
+/**
+ * Throws RangeError when g has a directed cycle or a self-loop: the caller checks acyclicity first
+ * (with its own certificate), so reaching here with a cycle is a bug, not a property of a diagram.
+ * Parallel edges are fine (a copy beside its twin changes nothing).
+ */
 export function testUpwardPlanarity(g: Digraph, budget?: Readonly<UpwardBudget>): UpwardTestResult {
+  if (!findCycle(g).acyclic) throw new RangeError('testUpwardPlanarity needs an acyclic digraph')
   const now = budget?.now ?? (() => performance.now())
   const deadline = now() + (budget?.maxMillis ?? 3000)
   const expired = () => now() > deadline
