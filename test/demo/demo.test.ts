@@ -7,7 +7,7 @@
  * - every file in fixtures/broken fails with the rule, at the line and column, that its README lists.
  */
 import {spawnSync} from 'node:child_process'
-import {mkdtempSync, readFileSync, readdirSync, rmSync, existsSync, mkdirSync, copyFileSync} from 'node:fs'
+import {copyFileSync, existsSync, mkdirSync, mkdtempSync, readFileSync, readdirSync, rmSync, writeFileSync} from 'node:fs'
 import os from 'node:os'
 import path from 'node:path'
 import {fileURLToPath} from 'node:url'
@@ -185,6 +185,22 @@ describe('fixtures/broken', () => {
       const found = errors.map((m) => `${m.ruleId} ${m.line}:${m.column}`)
       expect(found.sort(), file).toEqual(expected.map((e) => `${e.ruleId} ${e.line}:${e.column}`).sort())
     }
+  })
+
+  it('the README shows what `upright check fixtures/broken` prints (UPDATE=1 rewrites it)', async () => {
+    const readmePath = path.join(brokenDir, 'README.md')
+    const readme = readFileSync(readmePath, 'utf8')
+    const {code, stdout} = await cli(['check', 'fixtures/broken'])
+    expect(code).toBe(1)
+    const command = '$ npx tsx packages/cli/src/bin.ts check fixtures/broken\n'
+    // A four-backtick fence: the output quotes three-backtick fence lines of the broken files.
+    const block = /^````text\n\$ [^\n]*\n([\s\S]*?)^````$/m.exec(readme)
+    expect(block, 'README has a ````text block starting with the command').not.toBeNull()
+    if (process.env['UPDATE'] === '1' && block![1] !== stdout) {
+      writeFileSync(readmePath, readme.replace(block![0], '````text\n' + command + stdout + '````'))
+      return
+    }
+    expect(block![1]).toBe(stdout)
   })
 
   it('the not-upward fixture is the 5-vertex wheel: acyclic and planar by networkx', () => {
