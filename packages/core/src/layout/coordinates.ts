@@ -76,14 +76,23 @@ export function assignCoordinates(
   const blockWT = new Float64Array(widest)
   const blockEnd = new Int32Array(widest)
 
+  // Cumulative separations per layer position: constant over the sweeps, computed once.
+  const offsetOf = new Float64Array(count)
+  for (const layer of lg.layers) {
+    let acc = 0
+    for (let i = 0; i < layer.length; i++) {
+      if (i > 0) acc += separation(lg, layer[i - 1]!, layer[i]!, nodeGap, edgeGap)
+      offsetOf[layer[i]!] = acc
+    }
+  }
+
   const solveLayer = (layer: Int32Array, useSegments: boolean): void => {
     const k = layer.length
     if (k === 0) return
-    let acc = 0
     for (let i = 0; i < k; i++) {
-      if (i > 0) acc += separation(lg, layer[i - 1]!, layer[i]!, nodeGap, edgeGap)
-      offset[i] = acc
       const o = layer[i]!
+      const acc = offsetOf[o]!
+      offset[i] = acc
       let w = ANCHOR
       let wt = ANCHOR * x[o]!
       for (let j = start[o]!, end = useSegments ? start[o + 1]! : start[o]!; j < end; j++) {

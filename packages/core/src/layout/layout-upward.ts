@@ -26,9 +26,9 @@
  * order and two such segments cannot meet. Why upward: every segment strictly
  * increases v (bands have non-negative height, gaps positive).
  *
- * Time: O((n + m + B) log(n + m + B)) for B bend objects (one sort of each layer), plus the linear
- * passes of layering.ts and coordinates.ts. B is at most m times the number of layers, typically a
- * small multiple of m.
+ * Time: O(n + m + B + F) for B bend objects and F faces of H (counting sorts, port sorts aside:
+ * O(d log d) per vertex of degree d), plus the passes of layering.ts and coordinates.ts, each linear.
+ * B is at most m times the number of layers, typically a small multiple of m.
  */
 import type {Digraph} from '../graph/digraph.ts'
 import {layerByWeightedSpan} from './layering.ts'
@@ -105,10 +105,8 @@ export function layoutUpward(input: LayoutInput): Layout {
   }
 
   // 3. Per-layer order by visibility abscissa (ties cannot occur between objects on one layer;
-  //    the id tie-break only keeps the sort total).
-  const sorted = Int32Array.from({length: objectCount}, (_, i) => i).sort(
-    (a, b) => layerOf[a]! - layerOf[b]! || key[a]! - key[b]! || a - b
-  )
+  //    the id order among equal keys only keeps the sort total).
+  const sorted = sortByLayerThenKey(layerOf, key, layerCount)
   const layers: Int32Array[] = []
   for (let i = 0, l = 0; l < layerCount; l++) {
     const from = i
@@ -240,6 +238,24 @@ export function layoutUpward(input: LayoutInput): Layout {
 
   // 6. To SVG coordinates.
   return orient(flow, g, x, layerOf, centre, boxes, routes)
+}
+
+/** Object ids sorted by (layer, key, id): two stable counting sorts, O(objects + keys + layers). */
+function sortByLayerThenKey(layerOf: Int32Array, key: Int32Array, layerCount: number): Int32Array {
+  const count = layerOf.length
+  let maxKey = 0
+  for (let o = 0; o < count; o++) if (key[o]! > maxKey) maxKey = key[o]!
+  const byKey = countingSort(Int32Array.from({length: count}, (_, i) => i), key, maxKey + 1)
+  return countingSort(byKey, layerOf, layerCount)
+}
+
+function countingSort(items: Int32Array, by: Int32Array, range: number): Int32Array {
+  const start = new Int32Array(range + 1)
+  for (const o of items) start[by[o]! + 1]!++
+  for (let r = 0; r < range; r++) start[r + 1]! += start[r]!
+  const out = new Int32Array(items.length)
+  for (const o of items) out[start[by[o]!]!++] = o
+  return out
 }
 
 function checkInput(g: Digraph, h: Digraph, boxCount: number): void {
