@@ -189,12 +189,12 @@ function decideCore(red: Reduction, expired: () => boolean): CoreDecision {
     return {kind: 'yes', method: 'search', rot: out.rot, large: out.angles.large, outerVertex: out.angles.outerVertex, nodes: spent}
   }
   // If the assignment bound never cut, the search met only non-bimodal dead ends: no bimodal
-  // embedding exists. Otherwise a bimodal-only search, capped at the same effort, may tell; when it
+  // embedding exists. Otherwise a bimodal-only search, capped at about the same effort, may tell; when it
   // cannot, the weaker reason is still true.
   let reason: 'not-bimodal' | 'no-upward-embedding' = 'not-bimodal'
   let nodes = spent
   if (out.assignmentPruned) {
-    let left = out.nodes
+    let left = out.nodes + 256
     const bimodal = searchUpwardEmbedding(k, tail, head, 'bimodal', () => --left < 0 || expired())
     nodes += bimodal.nodes
     reason = bimodal.found === false ? 'not-bimodal' : 'no-upward-embedding'
