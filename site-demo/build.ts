@@ -1,14 +1,17 @@
 /**
  * `pnpm demo`: build the demo handbook into site-demo/dist/ with a plain unified pipeline.
- * `pnpm demo -- --warn` reports failing diagrams as warnings and keeps them as code blocks.
+ * `pnpm demo -- --warn` reports failing diagrams as warnings and keeps them as code blocks;
+ * `pnpm demo -- --out <dir>` writes somewhere else.
  */
 import path from 'node:path'
 import {fileURLToPath} from 'node:url'
 import {buildSite, formatMessages} from './lib/build-site.ts'
 
 const here = path.dirname(fileURLToPath(import.meta.url))
-const warn = process.argv.slice(2).includes('--warn')
-const outDir = path.join(here, 'dist')
+const args = process.argv.slice(2)
+const warn = args.includes('--warn')
+const outAt = args.indexOf('--out')
+const outDir = outAt >= 0 && args[outAt + 1] ? path.resolve(args[outAt + 1]) : path.join(here, 'dist')
 
 const result = await buildSite({
   pagesDir: path.join(here, 'pages'),

@@ -126,10 +126,14 @@ describe('demo site (plain unified build)', () => {
   })
 
   it('`pnpm demo` builds every page, prints where it wrote and exits 0', () => {
-    const result = spawnSync(process.execPath, ['--import', 'tsx', 'site-demo/build.ts'], {cwd: repo, encoding: 'utf8'})
+    // The same script as `pnpm demo`, writing to a folder of its own so a reader of site-demo/dist
+    // running beside this test never sees a half-written page.
+    const out = path.join(temp, 'script-out')
+    const result = spawnSync(process.execPath, ['--import', 'tsx', 'site-demo/build.ts', '--out', out], {cwd: repo, encoding: 'utf8'})
     const pages = readdirSync(pagesDir).filter((f) => f.endsWith('.md')).length
     const diagrams = demoGraphs(pagesDir).length
-    expect(result.stdout).toBe(`wrote ${pages} pages (${diagrams} diagrams), an index and style.css to site-demo/dist/\n`)
+    expect(result.stdout).toBe(`wrote ${pages} pages (${diagrams} diagrams), an index and style.css to ${path.relative(repo, out)}/\n`)
+    expect(readdirSync(out).sort()).toEqual([...readdirSync(pagesDir).map((f) => f.replace(/\.md$/, '.html')), 'index.html', 'style.css'].sort())
     expect(result.stderr).toBe('')
     expect(result.status).toBe(0)
   })
