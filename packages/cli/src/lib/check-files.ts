@@ -4,7 +4,7 @@
  */
 import {readFile} from 'node:fs/promises'
 import path from 'node:path'
-import {defaultBudgetMillis, type DiagramOptions, type Flow, type Point} from '@upright/core'
+import {defaultBudgetMillis, type DiagramOptions, type Flow, type Limits, type Point} from '@upright/core'
 import {checkTree, parseMarkdown, type BlockMessage, type BlockResult, type DiagramBlock} from 'remark-upright'
 import {checkBlockBody} from './check-bare.ts'
 import {describeFsError} from './collect-files.ts'
@@ -24,6 +24,8 @@ export interface CheckFilesOptions {
   flow?: Flow | undefined
   title?: string | undefined
   budget?: number | undefined
+  /** Size limits per diagram (`--limits`); unset fields keep their defaults. */
+  limits?: Readonly<Partial<Limits>> | undefined
 }
 
 export async function checkFile(file: string, options: CheckFilesOptions): Promise<FileReport> {
@@ -44,9 +46,9 @@ export async function checkFile(file: string, options: CheckFilesOptions): Promi
     const layer: Partial<DiagramOptions> = {}
     if (options.flow) layer.flow = options.flow
     if (options.title !== undefined) layer.title = options.title
-    return {file, display, text, results: [checkBlockBody(text, layer, budget)]}
+    return {file, display, text, results: [checkBlockBody(text, layer, budget, options.limits)]}
   }
-  return {file, display, text, results: checkTree(parseMarkdown(text), text, {flow: options.flow, budget})}
+  return {file, display, text, results: checkTree(parseMarkdown(text), text, {flow: options.flow, budget, limits: options.limits})}
 }
 
 function decodeUtf8(bytes: Uint8Array): string | undefined {

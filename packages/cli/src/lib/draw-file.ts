@@ -2,7 +2,7 @@
  * `upright layout` and `upright render`: one diagram of one file (a `.upright` file, or the N-th
  * diagram of a Markdown file), drawn. A diagram that fails its check is reported like `check` does.
  */
-import {drawDiagram, layoutStats, type Drawing, type Flow, type Layout} from '@upright/core'
+import {drawDiagram, layoutStats, type Drawing, type Flow, type Layout, type Limits} from '@upright/core'
 import {renderSvg} from '@upright/svg'
 import {checkFile, type FileReport} from './check-files.ts'
 
@@ -11,6 +11,7 @@ export interface DrawFileOptions {
   flow?: Flow | undefined
   title?: string | undefined
   budget?: number | undefined
+  limits?: Readonly<Partial<Limits>> | undefined
   /** 1-based index of the diagram in a Markdown file. */
   diagram: number
 }

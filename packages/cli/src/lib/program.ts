@@ -3,7 +3,7 @@
  * `run` takes its world as an argument so tests can drive it in-process.
  */
 import {Command, CommanderError, InvalidArgumentError, Option} from 'commander'
-import {flows, type Flow} from '@upright/core'
+import {defaultLimits, flows, resolveLimits, type Flow, type Limits} from '@upright/core'
 import {collectFiles} from './collect-files.ts'
 import {checkFile, type FileReport} from './check-files.ts'
 import {toJsonReport} from './format-json.ts'
@@ -40,7 +40,8 @@ export async function run(argv: readonly string[], io: Io): Promise<number> {
     .addOption(new Option('--flow <flow>', 'default flow (for .upright files: their flow)').choices(flows))
     .option('--title <title>', 'title (for .upright files)')
     .option('--budget <ms>', 'milliseconds the upward test may spend per diagram', parseBudget)
-    .action(async (paths: string[], opts: {format: 'text' | 'json'; flow?: Flow; title?: string; budget?: number}) => {
+    .option('--limits <json>', limitsHelp, parseLimits)
+    .action(async (paths: string[], opts: {format: 'text' | 'json'; flow?: Flow; title?: string; budget?: number; limits?: Partial<Limits>}) => {
       exit = await check(paths, opts, io)
     })
 
@@ -52,6 +53,7 @@ export async function run(argv: readonly string[], io: Io): Promise<number> {
       .addOption(new Option('--flow <flow>', 'flow (overrides the default; a diagram that sets flow keeps it)').choices(flows))
       .option('--title <title>', 'title (for .upright files)')
       .option('--budget <ms>', 'milliseconds the upward test may spend', parseBudget)
+      .option('--limits <json>', limitsHelp, parseLimits)
     if (name === 'layout') {
       command
         .description('print the drawing\'s geometry: boxes and edge polylines in SVG coordinates')
@@ -87,6 +89,7 @@ interface DrawOpts {
   flow?: Flow
   title?: string
   budget?: number
+  limits?: Partial<Limits>
 }
 
 async function draw(
@@ -125,6 +128,30 @@ function parsePositive(value: string): number {
   return n
 }
 
+const limitsHelp = `size limits per diagram as a JSON object, any of ${Object.keys(defaultLimits).join(', ')} (see docs/language.md#limits)`
+
+/** `--limits '{"maxVertices": 5000}'`: a JSON object of known limit names, each a whole number ≥ 1. */
+function parseLimits(value: string): Partial<Limits> {
+  let parsed: unknown
+  try {
+    parsed = JSON.parse(value)
+  } catch {
+    throw new InvalidArgumentError('expected a JSON object such as \'{"maxVertices": 5000}\'')
+  }
+  if (typeof parsed !== 'object' || parsed === null || Array.isArray(parsed)) {
+    throw new InvalidArgumentError('expected a JSON object such as \'{"maxVertices": 5000}\'')
+  }
+  for (const key of Object.keys(parsed)) {
+    if (!(key in defaultLimits)) throw new InvalidArgumentError(`unknown limit ${JSON.stringify(key)}; the limits are ${Object.keys(defaultLimits).join(', ')}`)
+  }
+  try {
+    resolveLimits(parsed as Partial<Limits>)
+  } catch (error) {
+    throw new InvalidArgumentError(error instanceof Error ? error.message : String(error))
+  }
+  return parsed as Partial<Limits>
+}
+
 function parseBudget(value: string): number {
   const n = Number(value)
   if (!Number.isFinite(n) || n <= 0) throw new InvalidArgumentError('expected a positive number of milliseconds')
@@ -138,7 +165,7 @@ export function baseDirectory(io: Io): string {
 
 async function check(
   paths: string[],
-  opts: {format: 'text' | 'json'; flow?: Flow; title?: string; budget?: number},
+  opts: {format: 'text' | 'json'; flow?: Flow; title?: string; budget?: number; limits?: Partial<Limits>},
   io: Io
 ): Promise<number> {
   const base = baseDirectory(io)
@@ -148,7 +175,7 @@ async function check(
   const reports: FileReport[] = []
   for (const [i, file] of collected.files.entries()) {
     if (showProgress) io.stderr.write(`\rchecking ${i + 1}/${collected.files.length}`)
-    reports.push(await checkFile(file, {base, flow: opts.flow, title: opts.title, budget: opts.budget}))
+    reports.push(await checkFile(file, {base, flow: opts.flow, title: opts.title, budget: opts.budget, limits: opts.limits}))
   }
   if (showProgress) io.stderr.write('\r\u001b[K')
 

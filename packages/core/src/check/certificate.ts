@@ -9,5 +9,8 @@ export type Certificate =
   | {kind: 'kuratowski'; type: 'K5' | 'K3,3'; branch: string[]; edges: UserEdge[]}
   | {kind: 'obstruction'; edges: UserEdge[]}
 
-/** Every outcome of checking one diagram. `upward` is the only passing one. */
-export type DiagramStatus = 'upward' | 'cycle' | 'nonplanar' | 'not-upward' | 'syntax' | 'undecided'
+/**
+ * Every outcome of checking one diagram. `upward` is the only passing one; `too-large` means a size
+ * limit (limits.ts) was exceeded and the graph was not checked.
+ */
+export type DiagramStatus = 'upward' | 'cycle' | 'nonplanar' | 'not-upward' | 'syntax' | 'undecided' | 'too-large'

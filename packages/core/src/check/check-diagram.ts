@@ -11,12 +11,15 @@ import type {Certificate, DiagramStatus} from './certificate.ts'
 import {testPlanarity} from '../planarity/index.ts'
 import {findMinimalObstruction, testUpwardPlanarity, type UpwardEmbedding} from '../upward/index.ts'
 import {cycleFailure, kuratowskiFailure, obstructionFailure, undecidedDiagnostic} from './failures.ts'
+import {checkParsedLimits, checkTextLimits, resolveLimits, tooManyEdges, type Limits} from './limits.ts'
 
 export interface CheckSettings {
   /** Milliseconds the upward test may spend on this diagram before answering `undecided`. */
   budgetMillis?: number
   /** Clock for the budget (injectable for tests); defaults to `performance.now`. */
   now?: () => number
+  /** Size limits (each field defaults to `defaultLimits`); past one, the status is `too-large`. */
+  limits?: Readonly<Partial<Limits>> | undefined
 }
 
 export const defaultBudgetMillis = 3000
@@ -37,7 +40,17 @@ export function checkDiagram(text: string, settings: Readonly<CheckSettings> = {
   const now = settings.now ?? (() => performance.now())
   const budgetMillis = settings.budgetMillis ?? defaultBudgetMillis
   const deadline = now() + budgetMillis
-  const parsed = parseDiagram(text)
+  const limits = resolveLimits(settings.limits)
+  // Size limits first: the parser only sees bodies of bounded size with bounded lines.
+  const textLimits = checkTextLimits(text, limits)
+  if (textLimits.length > 0) return {status: 'too-large', diagnostics: textLimits, parsed: {vertices: [], edges: [], diagnostics: []}}
+  const parsed = parseDiagram(text, {maxEdges: limits.maxEdges})
+  const overLimits = checkParsedLimits(parsed, limits)
+  if (parsed.edgeLimitReached) overLimits.push(tooManyEdges(parsed.edgeLimitReached, limits.maxEdges))
+  if (overLimits.length > 0) {
+    const all = [...parsed.diagnostics, ...overLimits].sort((a, b) => a.range.start.offset - b.range.start.offset)
+    return {status: 'too-large', diagnostics: all, parsed}
+  }
   const diagnostics = [...parsed.diagnostics]
   if (diagnostics.some((d) => d.severity === 'error')) return {status: 'syntax', diagnostics, parsed}
 

@@ -1,3 +1,5 @@
 export type {Certificate, DiagramStatus, UserEdge} from './certificate.ts'
 export type {CheckSettings, DiagramCheck} from './check-diagram.ts'
 export {checkDiagram, defaultBudgetMillis} from './check-diagram.ts'
+export type {Limits, ResolvedLimits} from './limits.ts'
+export {defaultLimits, limitRuleIds, resolveLimits} from './limits.ts'

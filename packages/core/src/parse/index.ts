@@ -39,6 +39,11 @@ export interface ParsedDiagram {
   edges: ParsedEdge[]
   /** Errors and warnings, in source order. */
   diagnostics: Diagnostic[]
+  /**
+   * Set when parsing with `maxEdges` and the text writes more edges: the first edge past the cap.
+   * Edges (and vertices) from that statement on are then missing.
+   */
+  edgeLimitReached?: SourceRange
 }
 
 /**
@@ -64,6 +69,7 @@ export const parseRuleIds = [
 export type ParseRuleId = (typeof parseRuleIds)[number]
 
 export {parseDiagram} from './parser.ts'
+export type {ParseSettings} from './parser.ts'
 export type {Flow, DiagramOptions, OptionSpec, OptionValue} from './options.ts'
 export {
   defaultDiagramOptions,

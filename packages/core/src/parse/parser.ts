@@ -33,8 +33,20 @@ interface Statement {
 
 type LineResult = {ok: true; statement: Statement | undefined; last: boolean} | {ok: false; diagnostic: Diagnostic}
 
-export function parseDiagram(text: string): ParsedDiagram {
+export interface ParseSettings {
+  /**
+   * Stop making edges once this many have been written (repeats included), and report where in
+   * `edgeLimitReached`: one list-to-list arrow makes the product of its lists, so without a cap a
+   * short text could ask for millions of edges. Default: no cap.
+   */
+  maxEdges?: number
+}
+
+export function parseDiagram(text: string, settings: Readonly<ParseSettings> = {}): ParsedDiagram {
   const scanner = createScanner(text)
+  const maxEdges = settings.maxEdges ?? Infinity
+  let written = 0
+  let edgeLimitReached: SourceRange | undefined
   const vertices: ParsedVertex[] = []
   const edges: ParsedEdge[] = []
   const diagnostics: Diagnostic[] = []
@@ -73,6 +85,7 @@ export function parseDiagram(text: string): ParsedDiagram {
   }
 
   function apply(statement: Statement): void {
+    if (edgeLimitReached) return
     const groups = statement.groups.map((group) => group.map((item) => ({item, vertex: vertexFor(item)})))
     for (let g = 0; g + 1 < groups.length; g++) {
       const arrow = statement.arrows[g]!
@@ -85,6 +98,10 @@ export function parseDiagram(text: string): ParsedDiagram {
             arrowRange: arrow.range,
             tailRange: tail.item.id.range,
             headRange: head.item.id.range
+          }
+          if (++written > maxEdges) {
+            edgeLimitReached = edge.range
+            return
           }
           const pair = `${edge.from},${edge.to}`
           const earlier = edgeIndex.get(pair)
@@ -131,7 +148,7 @@ export function parseDiagram(text: string): ParsedDiagram {
   // Errors of one line come before the warnings and label errors found when it is applied, but the
   // latter can point further left; a stable sort by position restores source order.
   diagnostics.sort((a, b) => a.range.start.offset - b.range.start.offset)
-  return {vertices, edges, diagnostics}
+  return edgeLimitReached ? {vertices, edges, diagnostics, edgeLimitReached} : {vertices, edges, diagnostics}
 }
 
 function parseLine(scanner: Scanner): LineResult {

@@ -6,8 +6,8 @@
 import type {Root} from 'mdast'
 import type {VFile} from 'vfile'
 import type {VFileMessage} from 'vfile-message'
-import type {Flow} from '@upright/core'
-import {defaultBudgetMillis} from '@upright/core'
+import type {Flow, Limits} from '@upright/core'
+import {defaultBudgetMillis, resolveLimits} from '@upright/core'
 import {findDiagramBlocks} from './blocks.ts'
 import {checkBlock, type BlockMessage, type BlockResult} from './check-block.ts'
 import {renderBlock, replaceBlock, type Output} from './render-block.ts'
@@ -24,6 +24,11 @@ export interface Options {
   onFailure?: 'fail' | 'warn' | null | undefined
   /** Milliseconds the upward test may spend per diagram before it answers `undecided` (default: 3000). */
   budget?: number | null | undefined
+  /**
+   * Size limits per diagram, any subset of `maxVertices`, `maxEdges`, `maxLabelLength`,
+   * `maxLineLength`, `maxTextBytes` (defaults: `defaultLimits` of @upright/core; docs/language.md#limits).
+   */
+  limits?: Readonly<Partial<Limits>> | null | undefined
   /** Where rule documentation lives; a message links to `${rulesUrl}#${ruleId}` (default: `'docs/rules.md'`). */
   rulesUrl?: string | null | undefined
   /**
@@ -43,6 +48,8 @@ export default function remarkUpright(options?: Readonly<Options> | null | undef
     flow: options?.flow ?? undefined,
     onFailure: options?.onFailure ?? 'fail',
     budget: options?.budget ?? defaultBudgetMillis,
+    // Resolved here so a bad limit is a configuration error at once, not at the first diagram.
+    limits: options?.limits ? resolveLimits(options.limits) : undefined,
     rulesUrl: options?.rulesUrl ?? 'docs/rules.md',
     output: options?.output ?? 'hast',
     draw: options?.draw ?? true
@@ -88,12 +95,12 @@ export default function remarkUpright(options?: Readonly<Options> | null | undef
 export function checkTree(
   tree: Root,
   text: string,
-  settings: {flow?: Flow | undefined; budget?: number | undefined}
+  settings: {flow?: Flow | undefined; budget?: number | undefined; limits?: Readonly<Partial<Limits>> | undefined}
 ): BlockResult[] {
   const lines = indexLines(text)
   const defaults = settings.flow ? {flow: settings.flow} : {}
   return findDiagramBlocks(tree, lines).map((block) =>
-    checkBlock(block, defaults, {budgetMillis: settings.budget ?? defaultBudgetMillis})
+    checkBlock(block, defaults, {budgetMillis: settings.budget ?? defaultBudgetMillis, limits: settings.limits})
   )
 }
 
