@@ -37,10 +37,15 @@ afterAll(() => {
   if (runs) rmSync(runs, {recursive: true, force: true})
 })
 
-async function astroBuild(name: string, options: {onFailure?: 'fail' | 'warn'; srcDir?: string}): Promise<{outDir: string; error: unknown}> {
+/**
+ * Build the test site: with `options`, from siteConfig(options) alone; without, from the site's own
+ * astro.config.mjs, as `astro build` in test/astro would.
+ */
+async function astroBuild(name: string, options?: {onFailure?: 'fail' | 'warn'; srcDir?: string}): Promise<{outDir: string; error: unknown}> {
   const outDir = path.join(runs, name)
+  const config = options ? {...siteConfig(options), configFile: false as const} : {}
   try {
-    await build({...siteConfig(options), root: here + path.sep, outDir, configFile: false, logLevel: 'silent'})
+    await build({...config, root: here + path.sep, outDir, logLevel: 'silent'})
     return {outDir, error: undefined}
   } catch (error) {
     return {outDir, error}
@@ -80,8 +85,8 @@ describe('Astro 5.18 with remark-directive and remark-upright', () => {
     expect(html).toContain('proposal')
   })
 
-  it('writes every demo page with each diagram drawn as an inline SVG figure', async () => {
-    const {outDir, error} = await astroBuild('demo', {onFailure: 'fail'})
+  it('writes every demo page with each diagram drawn as an inline SVG figure (astro.config.mjs)', async () => {
+    const {outDir, error} = await astroBuild('demo')
     expect(error).toBeUndefined()
     const graphs = demoGraphs(pagesDir)
     for (const name of pageNames) {
