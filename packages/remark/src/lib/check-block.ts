@@ -1,12 +1,17 @@
 /**
  * Check one diagram block: its options (meta string or directive attributes, over the plugin's
- * defaults) and its body, with every message mapped to file positions.
+ * defaults) and its body, with every message mapped to file positions. The body's outcome comes from
+ * the cache when it holds one (cache.ts); options are parsed every time, as they are cheap and their
+ * messages sit on the fence line rather than in the body.
  */
 import {
   checkDiagram,
+  defaultBudgetMillis,
   parseAttributeOptions,
   parseMetaOptions,
+  resolveLimits,
   resolveOptions,
+  type Certificate,
   type CheckSettings,
   type Diagnostic,
   type DiagramCheck,
@@ -15,6 +20,7 @@ import {
   type SourceRange
 } from '@upright/core'
 import type {DiagramBlock} from './blocks.ts'
+import {outcomeKey, type DiagramOutcome, type OutcomeCache} from './cache.ts'
 
 /** A message in file coordinates. */
 export interface BlockMessage extends Omit<Diagnostic, 'range' | 'related'> {
@@ -25,16 +31,26 @@ export interface BlockMessage extends Omit<Diagnostic, 'range' | 'related'> {
 export interface BlockResult {
   block: DiagramBlock
   options: DiagramOptions
-  /** `undefined` when the options themselves were bad (status `syntax`). */
+  /**
+   * The check as computed in this run; `undefined` when the options themselves were bad (status
+   * `syntax`) or when the outcome came from the cache.
+   */
   check: DiagramCheck | undefined
   status: DiagramCheck['status']
   messages: BlockMessage[]
+  /** The certificate of a failing check, whether computed now or cached. */
+  certificate?: Certificate | undefined
+  /** Cache address of this body and options, when a cache was given. */
+  key?: string | undefined
+  /** The drawing the cache held for this diagram (default id prefix). */
+  svg?: string | undefined
 }
 
 export function checkBlock(
   block: DiagramBlock,
   defaults: Partial<DiagramOptions>,
-  settings: Readonly<CheckSettings>
+  settings: Readonly<CheckSettings>,
+  cache?: OutcomeCache | undefined
 ): BlockResult {
   const messages: BlockMessage[] = []
   let layer: Partial<DiagramOptions> = {}
@@ -56,13 +72,31 @@ export function checkBlock(
   if (messages.some((m) => m.severity === 'error')) {
     return {block, options, check: undefined, status: 'syntax', messages}
   }
-  const check = checkDiagram(block.body, settings)
-  for (const d of check.diagnostics) messages.push(toFile(block, d))
-  if (check.status === 'syntax' && block.body.trim() === '') {
+  const key = cache ? outcomeKey(cache, block.body, options, settings.budgetMillis ?? defaultBudgetMillis, resolveLimits(settings.limits)) : undefined
+  const held: DiagramOutcome | undefined = key === undefined ? undefined : cache!.get(key)
+  const check = held ? undefined : checkDiagram(block.body, settings)
+  const outcome = held ?? check!
+  for (const d of outcome.diagnostics) messages.push(toFile(block, d))
+  if (outcome.status === 'syntax' && block.body.trim() === '') {
     // An empty body has no line of its own: point at the block's opening line instead.
     for (const m of messages) if (m.ruleId === 'empty-diagram') m.place = {start: block.start, end: block.end}
   }
-  return {block, options, check, status: check.status, messages}
+  const result: BlockResult = {block, options, check, status: outcome.status, messages, certificate: outcome.certificate, key}
+  if (held?.svg !== undefined) result.svg = held.svg
+  return result
+}
+
+/**
+ * Store a result computed in this run (with its drawing, when it has one). Cached results, bad
+ * options and `undecided` are not stored.
+ */
+export function rememberResult(cache: OutcomeCache | undefined, result: BlockResult, svg?: string): void {
+  const check = result.check
+  if (!cache || result.key === undefined || !check || check.status === 'undecided') return
+  const outcome: DiagramOutcome = {status: check.status, diagnostics: check.diagnostics}
+  if (check.certificate) outcome.certificate = check.certificate
+  if (svg !== undefined) outcome.svg = svg
+  cache.set(result.key, outcome)
 }
 
 function strip(d: Diagnostic): Omit<Diagnostic, 'range' | 'related'> {

@@ -6,11 +6,14 @@
 import type {Root} from 'mdast'
 import type {VFile} from 'vfile'
 import type {VFileMessage} from 'vfile-message'
-import type {Flow, Limits} from '@upright/core'
+import type {CheckSettings, Flow, Limits} from '@upright/core'
+import type {Root as HastRoot} from 'hast'
+import type {RootContent} from 'mdast'
 import {defaultBudgetMillis, resolveLimits} from '@upright/core'
 import {findDiagramBlocks} from './blocks.ts'
-import {checkBlock, type BlockMessage, type BlockResult} from './check-block.ts'
-import {renderBlock, replaceBlock, type Output} from './render-block.ts'
+import {openOutcomeCache, type CacheSetting, type OutcomeCache} from './cache.ts'
+import {checkBlock, rememberResult, type BlockMessage, type BlockResult} from './check-block.ts'
+import {drawBlock, figureNode, replaceBlock, type Output} from './render-block.ts'
 import {indexLines} from './source-lines.ts'
 
 export interface Options {
@@ -39,6 +42,14 @@ export interface Options {
   output?: Output | null | undefined
   /** Replace passing blocks by their drawing (default: `true`); `false` only checks. */
   draw?: boolean | null | undefined
+  /**
+   * Reuse results of diagrams seen before, by a hash of their text, options, budget, limits and the
+   * Upright version (default: `true`). `true` keeps them in memory for the life of the process;
+   * `{dir, maxBytes}` also on disk, in `dir` (default: `node_modules/.cache/upright` of the nearest
+   * package.json above the file's `cwd`), shared with `upright check` and bounded to `maxBytes`
+   * (default: 50 MiB); `false` checks and draws every diagram afresh.
+   */
+  cache?: CacheSetting | null | undefined
 }
 
 export const messageSource = 'upright'
@@ -55,15 +66,32 @@ export default function remarkUpright(options?: Readonly<Options> | null | undef
     draw: options?.draw ?? true
   }
   return function transform(tree: Root, file: VFile): void {
-    const results = checkTree(tree, String(file.value ?? ''), settings)
+    const cache = openOutcomeCache(options?.cache, file.cwd)
+    const results = checkTree(tree, String(file.value ?? ''), {...settings, cache, drawLater: settings.draw})
     let lastFatal: {message: BlockMessage} | undefined
     const fatal: VFileMessage[] = []
     const usedPrefixes = new Map<string, number>()
-    for (const result of results) {
-      if (result.status === 'upward' && settings.draw) {
-        let outcome: ReturnType<typeof renderBlock>
+    for (let result of results) {
+      if (result.status === 'upward' && settings.draw && result.svg === undefined && !result.check) {
+        // Cached as passing but without a drawing (`upright check` does not draw): check again to draw.
+        const fresh = checkBlock(result.block, settings.flow ? {flow: settings.flow} : {}, checkSettings(settings))
+        result = {...fresh, key: result.key}
+      }
+      if (result.status !== 'upward' || !settings.draw) rememberResult(cache, result)
+      else {
+        let outcome: {ok: true; node: RootContent} | {ok: false; reason: string}
         try {
-          outcome = renderBlock(result, settings.output, usedPrefixes)
+          let svg = result.svg
+          let hast: HastRoot | undefined
+          if (svg === undefined) {
+            const drawn = drawBlock(result)
+            if (drawn.ok) {
+              svg = drawn.svg
+              hast = drawn.hast
+              rememberResult(cache, result, svg)
+            } else throw new Error(drawn.reason)
+          }
+          outcome = {ok: true, node: figureNode(result, svg, hast, settings.output, usedPrefixes)}
         } catch (error) {
           outcome = {ok: false, reason: error instanceof Error ? error.message : String(error)}
         }
@@ -95,13 +123,28 @@ export default function remarkUpright(options?: Readonly<Options> | null | undef
 export function checkTree(
   tree: Root,
   text: string,
-  settings: {flow?: Flow | undefined; budget?: number | undefined; limits?: Readonly<Partial<Limits>> | undefined}
+  settings: TreeSettings
 ): BlockResult[] {
   const lines = indexLines(text)
   const defaults = settings.flow ? {flow: settings.flow} : {}
-  return findDiagramBlocks(tree, lines).map((block) =>
-    checkBlock(block, defaults, {budgetMillis: settings.budget ?? defaultBudgetMillis, limits: settings.limits})
-  )
+  const results = findDiagramBlocks(tree, lines).map((block) => checkBlock(block, defaults, checkSettings(settings), settings.cache))
+  // Results about to be drawn are stored with their drawing, by the caller.
+  if (!settings.drawLater) for (const result of results) rememberResult(settings.cache, result)
+  return results
+}
+
+export interface TreeSettings {
+  flow?: Flow | undefined
+  budget?: number | undefined
+  limits?: Readonly<Partial<Limits>> | undefined
+  /** Where to look results up and store them (see `openOutcomeCache`). */
+  cache?: OutcomeCache | undefined
+  /** The caller draws passing diagrams and stores every result itself (the plugin does). */
+  drawLater?: boolean | undefined
+}
+
+function checkSettings(settings: TreeSettings): CheckSettings {
+  return {budgetMillis: settings.budget ?? defaultBudgetMillis, limits: settings.limits}
 }
 
 function report(file: VFile, message: BlockMessage, asError: boolean, rulesUrl: string): VFileMessage[] {

@@ -3,7 +3,8 @@
  * caption. Delivered as hast through the mdast node's `data` (so remark-rehype needs no raw HTML), or
  * as an `html` node for pipelines that serialise Markdown or allow raw HTML.
  */
-import type {Element, ElementContent} from 'hast'
+import type {Element, ElementContent, Root, RootContent as RootContentHast} from 'hast'
+import {fromHtml} from 'hast-util-from-html'
 import type {Html, RootContent} from 'mdast'
 import {toHtml} from 'hast-util-to-html'
 import {drawDiagram, type DiagramOptions} from '@upright/core'
@@ -29,39 +30,74 @@ export type Output = 'hast' | 'html'
 
 export type RenderOutcome = {ok: true; node: UprightFigure | Html; svg: string} | {ok: false; reason: string}
 
-/**
- * Draw one checked block. `usedPrefixes` holds the id prefixes already on this page: a second copy of
- * the same diagram gets a numbered prefix so ids stay unique.
- */
-export function renderBlock(result: BlockResult, output: Output, usedPrefixes: Map<string, number>): RenderOutcome {
+export type DrawOutcome = {ok: true; svg: string; hast: Root} | {ok: false; reason: string}
+
+/** Draw a block checked in this run, with the SVG's default id prefix (the form the cache keeps). */
+export function drawBlock(result: BlockResult): DrawOutcome {
   const check = result.check
   if (!check) return {ok: false, reason: 'the block was not checked'}
   const drawn = drawDiagram(check, {flow: result.options.flow})
   if (!drawn.ok) return {ok: false, reason: 'the diagram is not upward planar'}
   const {layout, labels, ids} = drawn.drawing
-  const input = {layout, graph: check.graph!, labels, ids, title: titleOf(result.options)}
-  let rendered = renderSvg(input)
-  const prefix = /\bid="([^"]+?)-[^"-]*"/.exec(rendered.svg)?.[1]
+  const rendered = renderSvg({layout, graph: check.graph!, labels, ids, title: titleOf(result.options)})
+  return {ok: true, svg: rendered.svg, hast: rendered.hast}
+}
+
+/**
+ * Draw one checked block as a figure. `usedPrefixes` holds the id prefixes already on this page: a
+ * second copy of the same diagram gets a numbered prefix so ids stay unique.
+ */
+export function renderBlock(result: BlockResult, output: Output, usedPrefixes: Map<string, number>): RenderOutcome {
+  const drawn = drawBlock(result)
+  if (!drawn.ok) return drawn
+  return {ok: true, node: figureNode(result, drawn.svg, drawn.hast, output, usedPrefixes), svg: drawn.svg}
+}
+
+/**
+ * The figure for a drawing given as SVG text (and its hast, when at hand; a cached drawing is parsed
+ * again). The default id prefix is the root element's id, derived from the drawing itself, so only
+ * copies of one diagram share it; later copies get `-2`, `-3`, … appended to every id and reference.
+ */
+export function figureNode(
+  result: BlockResult,
+  svg: string,
+  hast: Root | undefined,
+  output: Output,
+  usedPrefixes: Map<string, number>
+): UprightFigure | Html {
+  const prefix = /^<svg\b[^>]*?\sid="([^"]+)"/.exec(svg)?.[1]
+  let tree = hast
   if (prefix !== undefined) {
     const seen = usedPrefixes.get(prefix) ?? 0
     usedPrefixes.set(prefix, seen + 1)
-    if (seen > 0) rendered = renderSvg(input, {idPrefix: `${prefix}-${seen + 1}`})
+    if (seen > 0) {
+      svg = svg.split(prefix).join(`${prefix}-${seen + 1}`)
+      tree = undefined
+    }
   }
-  const svg = rendered.hast.children.filter((c): c is Element => c.type === 'element')
-  const children: ElementContent[] = [...svg]
+  tree ??= svgTree(svg)
+  const children: ElementContent[] = tree.children.filter((c): c is Element => c.type === 'element')
   if (result.options.title) {
     children.push({type: 'element', tagName: 'figcaption', properties: {}, children: [{type: 'text', value: result.options.title}]})
   }
   const properties = {className: ['upright'], dataFlow: result.options.flow}
   if (output === 'html') {
     const figure: Element = {type: 'element', tagName: 'figure', properties, children}
-    return {ok: true, node: {type: 'html', value: toHtml(figure)}, svg: rendered.svg}
+    return {type: 'html', value: toHtml(figure)}
   }
-  return {
-    ok: true,
-    node: {type: 'uprightFigure', data: {hName: 'figure', hProperties: {className: ['upright'], 'data-flow': result.options.flow}, hChildren: children}},
-    svg: rendered.svg
-  }
+  return {type: 'uprightFigure', data: {hName: 'figure', hProperties: {className: ['upright'], 'data-flow': result.options.flow}, hChildren: children}}
+}
+
+/** SVG text back to hast, as @upright/svg builds it: a fragment without source positions. */
+export function svgTree(svg: string): Root {
+  const tree = fromHtml(svg, {fragment: true})
+  dropPositions(tree)
+  return tree
+}
+
+function dropPositions(node: Root | RootContentHast): void {
+  delete node.position
+  if ('children' in node) for (const child of node.children) dropPositions(child)
 }
 
 function titleOf(options: DiagramOptions): string | undefined {
