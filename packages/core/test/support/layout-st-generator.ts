@@ -19,6 +19,7 @@
 import {createDigraph, type Digraph} from '../../src/graph/digraph.ts'
 import {traceFaces, type RotationSystem} from '../../src/embedding/rotation-system.ts'
 import type {StAugmentation} from '../../src/augment/index.ts'
+import type {RandomUpwardPlanar} from './random-st.ts'
 
 /** mulberry32, a small seeded PRNG (common practice). */
 export function prng(seed: number): () => number {
@@ -270,4 +271,35 @@ export function randomBoxes(rand: () => number, n: number): Array<{width: number
     out.push({width: 30 + Math.round(rand() * 90), height: rand() < 0.85 ? 28 : 46})
   }
   return out
+}
+
+/**
+ * The planar st-graph that randomUpwardPlanar (the upward tests' generator) spans, as an
+ * st-augmentation of the graph it returns: G's edges first, the st-graph's other edges after, its
+ * rotation system and outer face as given. No upward test needed, so it scales to any size.
+ */
+export function augmentationOfRandomUpward(r: RandomUpwardPlanar): LayoutCase {
+  const st = r.st
+  const order = r.stEdge.slice()
+  const inG = new Set(order)
+  for (let e = 0; e < st.edges.length; e++) if (!inG.has(e)) order.push(e)
+  const newId = new Int32Array(st.edges.length)
+  order.forEach((e, i) => (newId[e] = i))
+  const hg = createDigraph(st.vertexCount, order.map((e) => st.edges[e]!))
+  const embedding: RotationSystem = {graph: hg, rotation: st.rotation.map((rot) => Int32Array.from(rot, (e) => newId[e]!))}
+  const faces = traceFaces(embedding)
+  const outerFace = faces.faceOfDart[2 * newId[st.outerDart >> 1]! + (st.outerDart & 1)]!
+  return {
+    graph: createDigraph(r.vertexCount, r.edges),
+    st: {
+      graph: hg,
+      embedding,
+      faces,
+      outerFace,
+      source: st.source,
+      sink: st.sink,
+      addedEdges: order.slice(r.stEdge.length).map((_, i) => r.stEdge.length + i),
+      addedVertices: [],
+    },
+  }
 }
