@@ -12,7 +12,7 @@ import type {Element, ElementContent, Root, RootContent} from 'hast'
 import {fromHtml} from 'hast-util-from-html'
 import {toHtml} from 'hast-util-to-html'
 import {s} from 'hastscript'
-import {optimize} from 'svgo/browser'
+import {optimize, type Config} from 'svgo/browser'
 import {FONT_STACK, labelBox, type LabelBoxOptions} from '@upright/core'
 import {describeHierarchy, spokenLabel, type FlowWord} from './describe.ts'
 import {DEFAULT_EDGE_STYLE, edgeShape, type EdgeStyle} from './geometry.ts'
@@ -261,16 +261,33 @@ function dropPositions(node: Root | RootContent): void {
   if ('children' in node) for (const child of node.children) dropPositions(child)
 }
 
+/**
+ * Step 2: svgo at `precision`, with our pass list, or (for bench/svg.ts to compare against) svgo's
+ * preset-default with the three overrides that keep ids, <style> rules and role="img".
+ */
+export function optimizeSvg(raw: string, precision: number, passes: 'upright' | 'preset-default'): string {
+  const plugins: Config['plugins'] =
+    passes === 'upright'
+      ? [...SVGO_PLUGINS]
+      : [
+          {
+            name: 'preset-default',
+            params: {overrides: {cleanupIds: false, inlineStyles: false, removeUnknownsAndDefaults: {keepRoleAttr: true}}}
+          }
+        ]
+  return optimize(raw, {multipass: false, floatPrecision: precision, js2svg: {pretty: false}, plugins}).data
+}
+
+/** Step 1 alone: the SVG text before svgo, and the precision it was written at (for bench/svg.ts). */
+export function unoptimizedSvg(input: RenderInput, options?: Readonly<Options> | null): {svg: string; precision: number} {
+  const settings = settle(input, options)
+  return {svg: toHtml(buildTree(input, settings), {space: 'svg'}), precision: settings.precision}
+}
+
 /** Render a layout as optimized, accessible, themable SVG: the string and the same tree as hast. */
 export function renderSvg(input: RenderInput, options?: Readonly<Options> | null): RenderResult {
-  const settings = settle(input, options)
-  const raw = toHtml(buildTree(input, settings), {space: 'svg'})
-  const optimized = optimize(raw, {
-    multipass: false,
-    floatPrecision: settings.precision,
-    js2svg: {pretty: false},
-    plugins: [...SVGO_PLUGINS]
-  }).data
+  const {svg: raw, precision} = unoptimizedSvg(input, options)
+  const optimized = optimizeSvg(raw, precision, 'upright')
   const hast = fromHtml(optimized, {fragment: true})
   dropPositions(hast)
   return {svg: toHtml(hast, {closeEmptyElements: true}), hast}
