@@ -15,7 +15,8 @@
  * - the fragment with the fewest admissible faces is placed next (forced moves first, as in DMP);
  * - a vertex that is not bimodal stays so when edges are added around it;
  * - a subgraph of an upward drawing is drawn upward, so a partial embedding that admits no upward
- *   drawing for any outer face cannot be completed.
+ *   drawing for any outer face cannot be completed; moreover a vertex that is so far a sink (source)
+ *   but still has an out-edge (in-edge) to place must have its large angle where that edge can go.
  *
  * Exponential in the worst case (the problem is NP-complete: Garg & Tamassia, SIAM J. Comput. 31,
  * 2001); the caller's budget bounds the time. Each node costs O(m·F) for faces and fragments plus the
@@ -193,11 +194,9 @@ export function searchUpwardEmbedding(
   }
 
   let assignmentPruned = false
-  const bound = (touched: number[]): boolean => {
+  const bimodal = (touched: number[]): boolean => {
     for (const v of touched) if (changes(rot[v]!, v) > 2) return false
-    if (goal === 'bimodal' || assignLargeAngles(rot, tail, head) !== null) return true
-    assignmentPruned = true
-    return false
+    return true
   }
 
   let result: {rot: number[][]; angles: LargeAngles} | null = null
@@ -216,12 +215,41 @@ export function searchUpwardEmbedding(
     const {faceAt, faces} = faceOfAngles()
     let best: Fragment | null = null
     let bestFaces: number[] = []
+    // A placed vertex that is a sink so far but has an unplaced out-edge (or a source so far with
+    // an unplaced in-edge) must send that edge through its large angle, the only one of its angles
+    // open upward (downward); so its large angle must lie in a face where that fragment can go.
+    const allowedFaces = new Map<number, Uint8Array>()
     for (const fr of fragments()) {
       const list = admissible(fr, faceAt, faces)
       if (list.length === 0 && faces > 0) return false
       if (best === null || list.length < bestFaces.length) {
         best = fr
         bestFaces = list
+      }
+      if (goal !== 'upward') continue
+      for (const [v, dirs] of fr.attach) {
+        const r = rot[v]!
+        if (r.length === 0) continue
+        const outs = r.reduce((c, e) => c + (tail[e] === v ? 1 : 0), 0)
+        if (!((outs === 0 && dirs & 1) || (outs === r.length && dirs & 2))) continue
+        let mask = allowedFaces.get(v)
+        if (mask === undefined) {
+          mask = new Uint8Array(faces).fill(1)
+          allowedFaces.set(v, mask)
+        }
+        const here = new Uint8Array(faces)
+        for (const f of list) here[f] = 1
+        for (let f = 0; f < faces; f++) mask[f]! &= here[f]!
+      }
+    }
+    if (goal === 'upward' && faces > 0) {
+      const allowed = (v: number, i: number) => {
+        const mask = allowedFaces.get(v)
+        return mask === undefined || mask[faceAt[v]![i]!] === 1
+      }
+      if (assignLargeAngles(rot, tail, head, allowed) === null) {
+        assignmentPruned = true
+        return false
       }
     }
     // Mirror symmetry: reversing every rotation maps upward embeddings to upward embeddings. When the
@@ -243,7 +271,7 @@ export function searchUpwardEmbedding(
     }
     const attempt = (): boolean => {
       place(true)
-      const ok = bound(ear ? [a, b] : [a]) && go(depth + 1)
+      const ok = bimodal(ear ? [a, b] : [a]) && go(depth + 1)
       place(false)
       return ok
     }

@@ -28,6 +28,8 @@ export function assignLargeAngles(
   rot: ReadonlyArray<readonly number[]>,
   tail: ArrayLike<number>,
   head: ArrayLike<number>,
+  /** Optional restriction: may angle i of source/sink v be its large angle? Default: any. */
+  allowed?: (v: number, i: number) => boolean,
 ): LargeAngles | null {
   const n = rot.length
   let maxEdge = -1, vertices = 0, degSum = 0
@@ -86,7 +88,7 @@ export function assignLargeAngles(
       const f = faceOf[dartFrom(a, v) ^ 1]!
       if ((tail[a] === v) === (tail[b] === v)) {
         switches[f]!++
-        if (!mine.some(([g]) => g === f)) mine.push([f, i])
+        if ((allowed === undefined || allowed(v, i)) && !mine.some(([g]) => g === f)) mine.push([f, i])
       }
       if (tail[a] === v) outs++
     }
