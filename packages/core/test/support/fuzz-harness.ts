@@ -19,7 +19,6 @@
  *   the brute-force oracle (support/upward-oracle.ts);
  * - `syntax` and `too-large`: at least one error, of a parse or limit rule.
  */
-import type {Element, Root, RootContent} from 'hast'
 import {verifyCycle} from '../../src/acyclic/index.ts'
 import {verifyStGraph} from '../../src/augment/index.ts'
 import {checkDiagram, type DiagramCheck} from '../../src/check/index.ts'
@@ -102,19 +101,26 @@ function subgraph(g: Digraph, edges: readonly number[]): Digraph {
   )
 }
 
-function textsOf(node: Root | RootContent, into: string[], inText = false): void {
-  if (node.type === 'text') {
-    if (inText) into.push(node.value)
-    return
-  }
-  if (!('children' in node)) return
-  const isText = node.type === 'element' && (node.tagName === 'text' || node.tagName === 'tspan')
-  for (const child of node.children) textsOf(child, into, inText || isText)
+/** The part of a hast node these checks read. */
+interface HastNode {
+  type: string
+  tagName?: string
+  value?: string
+  children?: HastNode[]
 }
 
-function countElements(node: Root | RootContent, name: string): number {
-  let count = node.type === 'element' && (node as Element).tagName === name ? 1 : 0
-  if ('children' in node) for (const child of node.children) count += countElements(child, name)
+function textsOf(node: HastNode, into: string[], inText = false): void {
+  if (node.type === 'text') {
+    if (inText) into.push(node.value ?? '')
+    return
+  }
+  const isText = node.type === 'element' && (node.tagName === 'text' || node.tagName === 'tspan')
+  for (const child of node.children ?? []) textsOf(child, into, inText || isText)
+}
+
+function countElements(node: HastNode, name: string): number {
+  let count = node.type === 'element' && node.tagName === name ? 1 : 0
+  for (const child of node.children ?? []) count += countElements(child, name)
   return count
 }
 
@@ -172,12 +178,12 @@ function verifyOutcome(check: DiagramCheck, settings: CaseSettings, problems: st
       if (!geometry.ok) problems.push(`drawing: ${geometry.problems.join('; ')}`)
       const rendered = renderSvg({layout, graph: g, labels, ids})
       if (!rendered.svg.startsWith('<svg')) problems.push('SVG does not start with <svg')
-      if (countElements(rendered.hast, 'svg') !== 1) problems.push('not exactly one <svg> element')
+      if (countElements(rendered.hast as HastNode, 'svg') !== 1) problems.push('not exactly one <svg> element')
       for (const forbidden of ['script', 'foreignObject', 'a', 'iframe']) {
-        if (countElements(rendered.hast, forbidden) > 0) problems.push(`SVG holds a <${forbidden}> element`)
+        if (countElements(rendered.hast as HastNode, forbidden) > 0) problems.push(`SVG holds a <${forbidden}> element`)
       }
       const drawnTexts = [] as string[]
-      textsOf(rendered.hast, drawnTexts)
+      textsOf(rendered.hast as HastNode, drawnTexts)
       const expected = labels.flatMap((label) => labelBox(label).lines.filter((line) => line !== ''))
       if (JSON.stringify([...drawnTexts].sort()) !== JSON.stringify([...expected].sort())) {
         problems.push(`SVG text ${JSON.stringify(drawnTexts)} is not the label lines ${JSON.stringify(expected)}`)
