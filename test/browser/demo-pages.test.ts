@@ -53,16 +53,16 @@ async function factsOf(url: string, colorScheme: 'light' | 'dark', screenshot?: 
   await page.goto(url)
   const facts = await page.evaluate(() => {
     const rect = (r: DOMRect) => ({left: r.left, top: r.top, right: r.right, bottom: r.bottom})
-    const svgs = [...document.querySelectorAll('figure.upright > svg')] as SVGSVGElement[]
+    const svgs = Array.from(document.querySelectorAll('figure.upright > svg')) as SVGSVGElement[]
     return {
       svgs: svgs.map((svg) => {
         const r = svg.getBoundingClientRect()
         const style = getComputedStyle(svg)
         return {width: r.width, height: r.height, visible: style.visibility !== 'hidden' && style.display !== 'none', children: svg.childElementCount}
       }),
-      boxes: svgs.map((svg) => [...svg.querySelectorAll('.upright-boxes rect, .upright-boxes path')].map((e) => rect(e.getBoundingClientRect()))),
+      boxes: svgs.map((svg) => Array.from(svg.querySelectorAll('.upright-boxes rect, .upright-boxes path')).map((e) => rect(e.getBoundingClientRect()))),
       labels: svgs.map((svg) =>
-        [...svg.querySelectorAll('.upright-labels text')].map((e) => ({...rect(e.getBoundingClientRect()), text: e.textContent ?? ''}))
+        Array.from(svg.querySelectorAll('.upright-labels text')).map((e) => ({...rect(e.getBoundingClientRect()), text: e.textContent ?? ''}))
       ),
       fills: svgs.map((svg) => {
         const box = svg.querySelector('.upright-boxes rect, .upright-boxes path')

@@ -75,7 +75,7 @@ export function parseDiagram(text: string, settings: Readonly<ParseSettings> = {
         diagnostics.push({
           severity: 'error',
           ruleId: 'conflicting-label',
-          reason: `Vertex \`${key}\` already has the label ${JSON.stringify(vertex.label)} (line ${first.start.line}), so it cannot also be labelled ${JSON.stringify(label.value)}.`,
+          reason: `Vertex \`${key}\` already has the label ${JSON.stringify(vertex.label)}, so it cannot also be labelled ${JSON.stringify(label.value)}.`,
           range: label.range,
           related: [{range: first, reason: 'The first label.'}]
         })
@@ -114,7 +114,7 @@ export function parseDiagram(text: string, settings: Readonly<ParseSettings> = {
           diagnostics.push({
             severity: 'warning',
             ruleId: 'duplicate-edge',
-            reason: `The edge \`${vertices[edge.from]!.key} -> ${vertices[edge.to]!.key}\` is already given on line ${first.range.start.line}; it is kept once.`,
+            reason: `The edge \`${vertices[edge.from]!.key} -> ${vertices[edge.to]!.key}\` is already given above; it is kept once.`,
             range: edge.range,
             related: [{range: first.range, reason: 'The first time this edge is given.'}]
           })
