@@ -5,7 +5,7 @@
 import {readFile} from 'node:fs/promises'
 import path from 'node:path'
 import {defaultBudgetMillis, type DiagramOptions, type Flow, type Limits, type Point} from '@upright/core'
-import {checkTree, parseMarkdown, type BlockMessage, type BlockResult, type DiagramBlock} from 'remark-upright'
+import {checkTree, parseMarkdown, type BlockMessage, type BlockResult, type DiagramBlock, type OutcomeCache} from 'remark-upright'
 import {checkBlockBody} from './check-bare.ts'
 import {describeFsError} from './collect-files.ts'
 
@@ -26,6 +26,8 @@ export interface CheckFilesOptions {
   budget?: number | undefined
   /** Size limits per diagram (`--limits`); unset fields keep their defaults. */
   limits?: Readonly<Partial<Limits>> | undefined
+  /** Where Markdown diagrams' results are looked up and stored (see remark-upright's `openOutcomeCache`). */
+  cache?: OutcomeCache | undefined
 }
 
 export async function checkFile(file: string, options: CheckFilesOptions): Promise<FileReport> {
@@ -48,7 +50,7 @@ export async function checkFile(file: string, options: CheckFilesOptions): Promi
     if (options.title !== undefined) layer.title = options.title
     return {file, display, text, results: [checkBlockBody(text, layer, budget, options.limits)]}
   }
-  return {file, display, text, results: checkTree(parseMarkdown(text), text, {flow: options.flow, budget, limits: options.limits})}
+  return {file, display, text, results: checkTree(parseMarkdown(text), text, {flow: options.flow, budget, limits: options.limits, cache: options.cache})}
 }
 
 function decodeUtf8(bytes: Uint8Array): string | undefined {

@@ -47,7 +47,7 @@ export function toJsonReport(reports: readonly FileReport[]): JsonReport {
           ruleId: m.ruleId,
           reason: m.reason
         })),
-        certificate: result.check?.certificate ?? null
+        certificate: result.certificate ?? result.check?.certificate ?? null
       })
     }
   }

@@ -5,7 +5,13 @@
 import {Command, CommanderError, InvalidArgumentError, Option} from 'commander'
 import {defaultLimits, flows, resolveLimits, type Flow, type Limits} from '@upright/core'
 import {collectFiles} from './collect-files.ts'
-import {checkFile, type FileReport} from './check-files.ts'
+import type {FileReport} from './check-files.ts'
+import {checkFiles} from './check-pool.ts'
+import {parseShard, selectShard, type Shard} from './shard.ts'
+import {createProgressBar} from './progress-bar.ts'
+import {findCacheDir} from '@upright/cache'
+import {openOutcomeCache} from 'remark-upright'
+import {availableParallelism} from 'node:os'
 import {toJsonReport} from './format-json.ts'
 import {formatText, summarize} from './format-text.ts'
 import {drawFile, layoutJson, renderFileSvg} from './draw-file.ts'
@@ -41,7 +47,11 @@ export async function run(argv: readonly string[], io: Io): Promise<number> {
     .option('--title <title>', 'title (for .upright files)')
     .option('--budget <ms>', 'milliseconds the upward test may spend per diagram', parseBudget)
     .option('--limits <json>', limitsHelp, parseLimits)
-    .action(async (paths: string[], opts: {format: 'text' | 'json'; flow?: Flow; title?: string; budget?: number; limits?: Partial<Limits>}) => {
+    .option('-j, --jobs <n>', 'worker threads (default: the number of cores)', parsePositive)
+    .option('--shard <i/n>', 'check only the i-th of n disjoint slices of the files (for splitting across CI jobs)', parseShardOption)
+    .option('--cache-dir <dir>', 'cache folder (default: node_modules/.cache/upright of the nearest package.json)')
+    .option('--no-cache', 'check every diagram afresh, without reading or writing the cache')
+    .action(async (paths: string[], opts: CheckOpts) => {
       exit = await check(paths, opts, io)
     })
 
@@ -163,21 +173,45 @@ export function baseDirectory(io: Io): string {
   return io.env['npm_lifecycle_event'] === 'upright' && io.env['INIT_CWD'] ? io.env['INIT_CWD'] : io.cwd
 }
 
-async function check(
-  paths: string[],
-  opts: {format: 'text' | 'json'; flow?: Flow; title?: string; budget?: number; limits?: Partial<Limits>},
-  io: Io
-): Promise<number> {
+interface CheckOpts {
+  format: 'text' | 'json'
+  flow?: Flow
+  title?: string
+  budget?: number
+  limits?: Partial<Limits>
+  jobs?: number
+  shard?: Shard
+  cacheDir?: string
+  cache: boolean
+}
+
+function parseShardOption(value: string): Shard {
+  const parsed = parseShard(value)
+  if (!parsed.ok) throw new InvalidArgumentError(parsed.reason)
+  return parsed.shard
+}
+
+/** Below this many files, starting worker threads costs more than it saves (unless --jobs is given). */
+const minFilesForWorkers = 64
+
+async function check(paths: string[], opts: CheckOpts, io: Io): Promise<number> {
   const base = baseDirectory(io)
   const collected = await collectFiles(paths, base)
   for (const p of collected.problems) io.stderr.write(`upright: cannot read ${p.path}: ${p.reason}\n`)
-  const showProgress = Boolean(io.stderr.isTTY) && collected.files.length > 20
-  const reports: FileReport[] = []
-  for (const [i, file] of collected.files.entries()) {
-    if (showProgress) io.stderr.write(`\rchecking ${i + 1}/${collected.files.length}`)
-    reports.push(await checkFile(file, {base, flow: opts.flow, title: opts.title, budget: opts.budget, limits: opts.limits}))
-  }
-  if (showProgress) io.stderr.write('\r\u001b[K')
+  const files = opts.shard ? selectShard(collected.files, base, opts.shard) : collected.files
+  // No package.json above the base and no --cache-dir: keep results in memory rather than pick a folder.
+  const dir = opts.cache ? (opts.cacheDir !== undefined ? path.resolve(base, opts.cacheDir) : findCacheDir(base)) : undefined
+  const cache = opts.cache ? (dir !== undefined ? {dir} : true) : false
+  const jobs = opts.jobs ?? (files.length >= minFilesForWorkers ? availableParallelism() : 1)
+  const bar = Boolean(io.stderr.isTTY) && files.length > 20 ? createProgressBar(io.stderr, files.length, 'checking') : undefined
+  const reports: FileReport[] = await checkFiles(
+    files,
+    {base, flow: opts.flow, title: opts.title, budget: opts.budget, limits: opts.limits},
+    {jobs, cache, onProgress: bar ? (done) => bar.tick(done) : undefined}
+  )
+  bar?.clear()
+  // Keep the folder within its bound (workers only add to it).
+  if (dir !== undefined) openOutcomeCache({dir}, base)?.prune()
 
   if (opts.format === 'json') {
     io.stdout.write(JSON.stringify(toJsonReport(reports), null, 2) + '\n')
