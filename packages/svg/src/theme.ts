@@ -112,7 +112,9 @@ export function stylesheet(id: string, theme: ResolvedTheme): string {
   const s = `#${id}`
   const first = theme.scheme === 'dark' ? theme.dark : theme.light
   const rules = [
-    `${s}{max-width:100%;height:auto;${privateProperties(first)}}`,
+    // Sizing at zero specificity, so any site rule (say, max-width:none in a scrolling wrapper) wins.
+    `:where(${s}){max-width:100%;height:auto}`,
+    `${s}{${privateProperties(first)}}`,
     theme.scheme === 'auto' ? `@media (prefers-color-scheme:dark){${s}{${privateProperties(theme.dark)}}}` : '',
     `${s} .${CLASS.background}{fill:var(--upright-background,var(--_bg))}`,
     `${s} .${CLASS.boxes}{fill:var(--upright-node-fill,var(--_nf));stroke:var(--upright-node-stroke,var(--_ns));` +

@@ -130,6 +130,13 @@ describe.skipIf(!executable && !process.env['CI'])('in Chromium with DejaVu Sans
     expect(custom['box']).toBe('#ffeedd')
     expect(custom['line']).toBe('#112233')
     expect(custom['arrow']).toBe('#112233') // arrows follow the edge colour unless set apart
+    // Sizing yields to any site rule; paints yield to the custom properties only.
+    const tab = await browser.newPage()
+    await tab.setContent(`<style>.upright{max-width:none}</style><div style="width:100px">${svg}</div>`)
+    expect(await tab.evaluate(() => getComputedStyle(document.querySelector('svg')!).maxWidth)).toBe('none')
+    await tab.setContent(`<div style="width:100px">${svg}</div>`)
+    expect(await tab.evaluate(() => document.querySelector('svg')!.getBoundingClientRect().width)).toBe(100)
+    await tab.close()
     expect(await paints('dark', 'print', site)).toEqual({
       box: '#ffffff', stroke: '#000000', text: '#000000', line: '#000000', arrow: '#000000', card: '#ffffff'
     })

@@ -112,7 +112,9 @@ describe('ids', () => {
       const css = view.styles.join('')
       const selectors = css.replace(/@media[^{]*\{/g, '').split('}').map((r) => r.split('{')[0]!.trim()).filter(Boolean)
       expect(selectors.length).toBeGreaterThan(5)
-      for (const sel of selectors) for (const part of sel.split(',')) expect(part.startsWith(`#${prefix}`)).toBe(true)
+      for (const sel of selectors) {
+        for (const part of sel.split(',')) expect(part.startsWith(`#${prefix}`) || part === `:where(#${prefix})`).toBe(true)
+      }
     }
     const page = [...views[0]!.ids, ...views[1]!.ids]
     expect(new Set(page).size).toBe(page.length)
