@@ -64,3 +64,25 @@ describe('randomUpwardPlanar graphs (the upward tests\' generator) through test,
     expect(failures).toEqual([])
   })
 })
+
+describe('small random DAGs (disconnected, isolated vertices, parallel edges) through test, augmentation and layout', () => {
+  it('1,000 DAGs with 1..9 vertices, one flow each', () => {
+    const failures: string[] = []
+    let drawn = 0
+    for (let seed = 1; seed <= 1000; seed++) {
+      const rand = prng(seed * 7 + 3)
+      const n = 1 + Math.floor(rand() * 9)
+      const density = rand() * 0.6
+      const edges: Array<[number, number]> = []
+      for (let i = 0; i < n; i++) for (let j = i + 1; j < n; j++) if (rand() < density) edges.push([i, j])
+      if (edges.length > 0 && rand() < 0.1) edges.push(edges[0]!) // a parallel edge now and then
+      const g = createDigraph(n, edges)
+      const res = testUpwardPlanarity(g)
+      if (res.status !== 'upward') continue
+      drawn++
+      for (const x of drawAndCheck(g, res, seed, false)) failures.push(`seed ${seed} ${JSON.stringify(edges)} ${x}`)
+    }
+    expect(failures).toEqual([])
+    expect(drawn).toBeGreaterThan(750)
+  })
+})

@@ -110,6 +110,13 @@ const catalogue: Named[] = [
     gVertices: 4,
     gEdges: [0, 1, 2, 3, 4, 5],
   },
+  // two parallel edges 0 -> 1 and a third edge 0 -> 1 -> 2 beside them
+  {
+    name: 'parallel edges',
+    h: embeddedSt(3, [[0, 1], [0, 1], [1, 2], [0, 2]], [[0, 1, 3], [2], []], [[], [0, 1], [2, 3]], 0, 2),
+    gVertices: 3,
+    gEdges: [0, 1, 2, 3],
+  },
   // a wide fan 0 -> {1..8} -> 9
   {
     name: 'fan of eight',
