@@ -3,6 +3,7 @@ import {describe, expect, it} from 'vitest'
 import {createDigraph, type Digraph} from '../src/index.ts'
 import {testPlanarity, verifyKuratowski} from '../src/planarity/index.ts'
 import {findMinimalObstruction, testUpwardPlanarity} from '../src/upward/index.ts'
+import {stAugment, verifyStGraph} from '../src/augment/index.ts'
 import {readGraphml} from './support/graphml.ts'
 import {checkUpwardWitness, upwardPlanarBruteForce, type Edge} from './support/upward-oracle.ts'
 
@@ -39,6 +40,7 @@ describe('North DAGs', () => {
         const up = r.upward
         const outerDarts = Array.from(up.outerFaces, (f) => up.faces.darts[f]![0]!)
         expect(checkUpwardWitness(n, edges, up.embedding.rotation, outerDarts, up.largeAngle), file).toBe(null)
+        expect(verifyStGraph(g, stAugment(up), up.embedding), file).toEqual({ok: true})
       } else if (r.reason === 'nonplanar') {
         count.nonplanar++
         const p = testPlanarity(g)

@@ -2,9 +2,13 @@ import {expect} from 'vitest'
 import {createDigraph} from '../../src/index.ts'
 import {testPlanarity, verifyKuratowski} from '../../src/planarity/index.ts'
 import {findMinimalObstruction, testUpwardPlanarity, type UpwardTestResult} from '../../src/upward/index.ts'
+import {stAugment, verifyStGraph} from '../../src/augment/index.ts'
 import {checkUpwardWitness, isUpwardPlanarBruteForce, type Edge} from './upward-oracle.ts'
 
-/** Runs the exact test and checks its witness independently (the oracle's checker). */
+/**
+ * Runs the exact test and checks its witness independently: the oracle's witness checker, and
+ * verifyStGraph on the st-augmentation built from it.
+ */
 export function decide(n: number, edges: readonly Edge[]): UpwardTestResult {
   const g = createDigraph(n, edges)
   const r = testUpwardPlanarity(g, {maxMillis: 20_000})
@@ -13,6 +17,8 @@ export function decide(n: number, edges: readonly Edge[]): UpwardTestResult {
     expect(up.embedding.graph).toBe(g)
     const outerDarts = Array.from(up.outerFaces, (f) => up.faces.darts[f]![0]!)
     expect(checkUpwardWitness(n, edges, up.embedding.rotation, outerDarts, up.largeAngle)).toBe(null)
+    // and through st-augmentation: H ⊇ G a planar st-digraph keeping G's embedding
+    expect(verifyStGraph(g, stAugment(up), up.embedding)).toEqual({ok: true})
   } else if (r.status === 'not-upward' && r.reason === 'nonplanar') {
     const p = testPlanarity(g)
     expect(p.planar).toBe(false)
