@@ -7,6 +7,7 @@ import {readFileSync} from 'node:fs'
 import {createRequire} from 'node:module'
 import {dirname, join} from 'node:path'
 import opentype from 'opentype.js'
+import fc from 'fast-check'
 import {describe, expect, it} from 'vitest'
 import {FONT_FAMILY, FONT_STACK, UNITS_PER_EM, advanceUnits, labelBox, labelLines, measureText} from '@upright/core'
 
@@ -141,5 +142,23 @@ describe('labelBox', () => {
     expect(big.width).toBe(Math.max(60, Math.ceil(fontWidth('Depot', 20)! + 8)))
     expect(big.height).toBe(34)
     expect(() => labelBox('x', {fontSize: 0})).toThrow(RangeError)
+  })
+
+  it('always holds its widest line plus padding, one line per break (fast-check, seeded)', () => {
+    const text = fc.string({unit: fc.oneof(fc.constantFrom('\n', '\r\n', ' ', '\t', 'é', '中', '😀', '\u0301'), fc.string({unit: 'binary', minLength: 1, maxLength: 1}))})
+    fc.assert(
+      fc.property(text, fc.integer({min: 8, max: 32}), (label, fontSize) => {
+        const box = labelBox(label, {fontSize})
+        const breaks = label.split(/\r\n|[\n\r\u0085\u2028\u2029]/).length
+        expect(box.lines).toHaveLength(breaks)
+        expect(box.lineWidths).toEqual(box.lines.map((line) => measureText(line, fontSize).width))
+        expect(box.width).toBeGreaterThanOrEqual(Math.max(...box.lineWidths) + 24)
+        expect(box.width).toBeGreaterThanOrEqual(3 * fontSize)
+        expect(box.width).toBe(Math.ceil(box.width))
+        expect(box.height).toBe(Math.ceil(breaks * 1.25 * fontSize + 16))
+        for (const line of box.lines) expect(line).toBe(line.trim())
+      }),
+      {seed: 7, numRuns: 400}
+    )
   })
 })

@@ -19,8 +19,8 @@
 import {ADVANCE_RANGES, ASCENDER, DESCENDER, FALLBACK_ADVANCE, FONT_FAMILY, UNITS_PER_EM} from './font-metrics.generated.ts'
 
 /**
- * CSS font stack for rendering: the measured font first, then faces with close metrics, then the
- * generic family. Names are unquoted (valid CSS for names made of identifiers) so the stack can sit in an
+ * CSS font stack for rendering: the measured font first, then faces of similar width (Bitstream Vera
+ * Sans, which DejaVu Sans grew from, and Verdana; recalled, not measured here), then the generic family. Names are unquoted (valid CSS for names made of identifiers) so the stack can sit in an
  * attribute without escapes.
  */
 export const FONT_STACK = `${FONT_FAMILY}, Bitstream Vera Sans, Verdana, sans-serif`
