@@ -274,3 +274,42 @@ describe('determinism and inputs', () => {
     expect(() => layoutUpward({graph: other, st: c.st, boxes: randomBoxes(prng(1), c.graph.vertexCount), flow: 'up'})).toThrow(/differs/)
   })
 })
+
+describe('layoutStats', () => {
+  it('counts crossings like a brute-force proper-intersection count on a deliberately broken layout', () => {
+    const c = randomLayoutCase(300, 300)
+    const layout = layoutUpward({graph: c.graph, st: c.st, boxes: randomBoxes(prng(1), c.graph.vertexCount), flow: 'up'})
+    expect(layoutStats(layout).crossings).toBe(0)
+    let k = 0
+    for (const e of layout.edges) {
+      if (e.points.length > 2) e.points[1] = [e.points[1]![0] + (k++ % 2 ? 300 : -300), e.points[1]![1]]
+    }
+    // All O(S^2) pairs, plain orientation signs, proper crossings only (no touching in this layout).
+    const segs: number[][] = []
+    layout.edges.forEach((e, ei) => e.points.forEach((p, i) => {
+      if (i > 0) segs.push([e.points[i - 1]![0], e.points[i - 1]![1], p[0], p[1], ei])
+    }))
+    const o = (ax: number, ay: number, bx: number, by: number, cx: number, cy: number): number =>
+      Math.sign((bx - ax) * (cy - ay) - (by - ay) * (cx - ax))
+    let brute = 0
+    for (let i = 0; i < segs.length; i++) {
+      for (let j = i + 1; j < segs.length; j++) {
+        const a = segs[i]!
+        const b = segs[j]!
+        if (a[4] === b[4]) continue
+        if (o(a[0]!, a[1]!, a[2]!, a[3]!, b[0]!, b[1]!) * o(a[0]!, a[1]!, a[2]!, a[3]!, b[2]!, b[3]!) < 0 &&
+          o(b[0]!, b[1]!, b[2]!, b[3]!, a[0]!, a[1]!) * o(b[0]!, b[1]!, b[2]!, b[3]!, a[2]!, a[3]!) < 0) brute++
+      }
+    }
+    expect(brute).toBeGreaterThan(50)
+    expect(layoutStats(layout).crossings).toBe(brute)
+  })
+
+  it('area, aspect ratio, bends and length of a hand-made drawing', () => {
+    const s = layoutStats({
+      flow: 'up', width: 100, height: 50, nodes: [],
+      edges: [{edge: 0, points: [[0, 50], [30, 10], [30, 0]]}, {edge: 1, points: [[100, 50], [100, 0]]}],
+    })
+    expect(s).toEqual({area: 5000, aspectRatio: 2, bends: 1, totalEdgeLength: 50 + 10 + 50, crossings: 0})
+  })
+})

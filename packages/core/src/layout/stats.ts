@@ -2,9 +2,8 @@
  * Figures of a drawing: area, aspect ratio, bends, total edge length, and crossings counted
  * geometrically (for comparing with other layouts; ours are crossing-free by construction).
  *
- * Crossings: pairs of segments from different edges that meet, found with a sweep over x (segments
- * sorted by their left end, an active list pruned by right end); O(S log S + P) for S segments and P
- * pairs whose x-ranges overlap. Plain floating-point orientation tests: this is a measurement, not a
+ * Crossings: pairs of segments from different edges that meet, candidates from a uniform grid of
+ * about S cells for S segments; O(S + C + P) for C cell entries and P candidate pairs sharing a cell. Plain floating-point orientation tests: this is a measurement, not a
  * proof (the tests check our drawings with exact predicates). Two edges that share an end vertex and
  * meet exactly at a common end point of both (a shared port) do not count.
  */
@@ -66,7 +65,7 @@ function meet(s: Float64Array, i: number, j: number): boolean {
 export function countCrossings(layout: Layout): number {
   const segs: number[] = []
   const owner: number[] = []
-  const endIndex: number[] = [] // 0 first segment, 2 last, 1 middle, 3 only segment
+  const endIndex: number[] = [] // bit 1: first segment of its polyline, bit 2: last
   for (let k = 0; k < layout.edges.length; k++) {
     const pts = layout.edges[k]!.points
     for (let i = 1; i < pts.length; i++) {
@@ -77,24 +76,55 @@ export function countCrossings(layout: Layout): number {
   }
   const s = Float64Array.from(segs)
   const count = owner.length
-  const order = Array.from({length: count}, (_, i) => i).sort(
-    (a, b) => Math.min(s[4 * a]!, s[4 * a + 2]!) - Math.min(s[4 * b]!, s[4 * b + 2]!)
-  )
-  let active: number[] = []
-  let crossings = 0
-  for (const i of order) {
-    const minX = Math.min(s[4 * i]!, s[4 * i + 2]!)
-    active = active.filter((j) => Math.max(s[4 * j]!, s[4 * j + 2]!) >= minX)
-    const iy0 = Math.min(s[4 * i + 1]!, s[4 * i + 3]!)
-    const iy1 = Math.max(s[4 * i + 1]!, s[4 * i + 3]!)
-    for (const j of active) {
-      if (owner[j] === owner[i]) continue
-      if (Math.max(s[4 * j + 1]!, s[4 * j + 3]!) < iy0 || Math.min(s[4 * j + 1]!, s[4 * j + 3]!) > iy1) continue
-      if (!meet(s, i, j)) continue
-      if (sharedPort(s, i, j, endIndex[i]!, endIndex[j]!)) continue
-      crossings++
+  if (count < 2) return 0
+  // Uniform grid over the segments' bounding boxes, about one cell per segment; a pair is tested in
+  // the one cell holding the lower corner of the intersection of their bounding boxes.
+  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity
+  for (let i = 0; i < count; i++) {
+    minX = Math.min(minX, s[4 * i]!, s[4 * i + 2]!)
+    maxX = Math.max(maxX, s[4 * i]!, s[4 * i + 2]!)
+    minY = Math.min(minY, s[4 * i + 1]!, s[4 * i + 3]!)
+    maxY = Math.max(maxY, s[4 * i + 1]!, s[4 * i + 3]!)
+  }
+  const side = Math.max(1, Math.ceil(Math.sqrt(count)))
+  const cw = (maxX - minX) / side || 1
+  const ch = (maxY - minY) / side || 1
+  const cellX = (x: number): number => Math.min(side - 1, Math.floor((x - minX) / cw))
+  const cellY = (y: number): number => Math.min(side - 1, Math.floor((y - minY) / ch))
+  const cells = new Map<number, number[]>()
+  const box = (i: number): [number, number, number, number] => [
+    Math.min(s[4 * i]!, s[4 * i + 2]!), Math.min(s[4 * i + 1]!, s[4 * i + 3]!),
+    Math.max(s[4 * i]!, s[4 * i + 2]!), Math.max(s[4 * i + 1]!, s[4 * i + 3]!),
+  ]
+  for (let i = 0; i < count; i++) {
+    const [x0, y0, x1, y1] = box(i)
+    for (let gx = cellX(x0); gx <= cellX(x1); gx++) {
+      for (let gy = cellY(y0); gy <= cellY(y1); gy++) {
+        const key = gx * side + gy
+        let list = cells.get(key)
+        if (!list) cells.set(key, (list = []))
+        list.push(i)
+      }
     }
-    active.push(i)
+  }
+  let crossings = 0
+  for (const [key, list] of cells) {
+    const gx = Math.floor(key / side)
+    const gy = key % side
+    for (let a = 0; a < list.length; a++) {
+      const i = list[a]!
+      const bi = box(i)
+      for (let b = a + 1; b < list.length; b++) {
+        const j = list[b]!
+        if (owner[j] === owner[i]) continue
+        const bj = box(j)
+        if (bi[2] < bj[0] || bj[2] < bi[0] || bi[3] < bj[1] || bj[3] < bi[1]) continue
+        if (cellX(Math.max(bi[0], bj[0])) !== gx || cellY(Math.max(bi[1], bj[1])) !== gy) continue
+        if (!meet(s, i, j)) continue
+        if (sharedPort(s, i, j, endIndex[i]!, endIndex[j]!)) continue
+        crossings++
+      }
+    }
   }
   return crossings
 }
