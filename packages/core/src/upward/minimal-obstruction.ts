@@ -10,8 +10,8 @@
  * starts from the planarity test's Kuratowski subgraph, which is already non-upward and small; for a
  * planar graph, from the reduced core (reduce.ts) of a failing component with its merged edges
  * expanded back into paths, which is not upward either since the reductions preserve the answer.
- * Time: one exact test per chunk tried, about N/4 + 2k·log(N/k) + k tests for k kept edges out of N,
- * all within one budget.
+ * Time: one exact test per component core, then one per chunk tried: O(k·log N) tests for k kept
+ * edges out of N, all within one budget.
  */
 import {createDigraph, type Digraph} from '../graph/digraph.ts'
 import {testPlanarity} from '../planarity/test-planarity.ts'
@@ -31,19 +31,20 @@ export function findMinimalObstruction(g: Digraph, budget?: Readonly<UpwardBudge
   const planar = testPlanarity(g)
   if (!planar.planar) keep = [...planar.kuratowski.edges]
   else {
-    const whole = testUpwardPlanarity(g, left())
-    if (whole.status === 'undecided') return {ok: false, reason: 'budget'}
-    if (whole.status === 'upward') return {ok: false, reason: 'upward'}
-    keep = Array.from({length: g.edgeCount}, (_, e) => e)
+    // The first component whose reduced core is not upward; the reductions preserve the answer, so
+    // when every core is upward so is g.
+    let found: number[] | null = null
     for (const comp of weakComponents(g)) {
       const core = expandedCore(g, comp)
       const r = testUpwardPlanarity(sub(core), left())
       if (r.status === 'undecided') return {ok: false, reason: 'budget'}
       if (r.status === 'not-upward') {
-        keep = core
+        found = core
         break
       }
     }
+    if (found === null) return {ok: false, reason: 'upward'}
+    keep = found
   }
   // Chunks first (halving down to single edges, in the manner of delta debugging), since most
   // edges of the start set can go; the last pass, one edge at a time, gives the minimality argument.
