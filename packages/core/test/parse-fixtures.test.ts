@@ -44,15 +44,29 @@ function describeResult(text: string, result: ParsedDiagram): unknown {
       ...(vertex.label === undefined ? {} : {label: vertex.label}),
       range: compact(vertex.range),
       text: slice(vertex.range),
-      ...(vertex.labelRange ? {labelRange: compact(vertex.labelRange), labelText: slice(vertex.labelRange)} : {})
+      ...(vertex.labelRange ? {labelRange: compact(vertex.labelRange), labelText: slice(vertex.labelRange)} : {}),
+      ...(vertex.tone === undefined ? {} : {tone: vertex.tone, toneText: slice(vertex.toneRange!)}),
+      ...(vertex.href === undefined ? {} : {href: vertex.href, hrefText: slice(vertex.hrefRange!)}),
+      ...(vertex.tier === undefined ? {} : {tier: result.tiers![vertex.tier]!.name})
     })),
+    ...(result.tiers
+      ? {
+          tiers: result.tiers.map((tier) => ({
+            name: tier.name,
+            range: compact(tier.range),
+            ...(tier.label === undefined ? {} : {label: tier.label, labelText: slice(tier.labelRange!)}),
+            vertices: tier.vertices.map((v) => result.vertices[v]!.key)
+          }))
+        }
+      : {}),
     edges: result.edges.map((edge) => ({
       edge: `${result.vertices[edge.from]!.key} -> ${result.vertices[edge.to]!.key}`,
       range: compact(edge.range),
       text: slice(edge.range),
       arrow: compact(edge.arrowRange),
       tail: compact(edge.tailRange),
-      head: compact(edge.headRange)
+      head: compact(edge.headRange),
+      ...(edge.label === undefined ? {} : {label: edge.label, labelText: slice(edge.labelRange!)})
     })),
     diagnostics: result.diagnostics.map((diagnostic) => ({
       severity: diagnostic.severity,
@@ -90,10 +104,10 @@ describe('parse fixtures', () => {
       const result = parseDiagram(text)
       for (const vertex of result.vertices) {
         checkRange(text, vertex.range)
-        if (vertex.labelRange) checkRange(text, vertex.labelRange)
+        for (const range of [vertex.labelRange, vertex.toneRange, vertex.hrefRange]) if (range) checkRange(text, range)
       }
       for (const edge of result.edges) {
-        for (const range of [edge.range, edge.arrowRange, edge.tailRange, edge.headRange]) checkRange(text, range)
+        for (const range of [edge.range, edge.arrowRange, edge.tailRange, edge.headRange, edge.labelRange]) if (range) checkRange(text, range)
       }
       for (const diagnostic of result.diagnostics) checkRange(text, diagnostic.range)
 

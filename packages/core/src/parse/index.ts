@@ -4,6 +4,7 @@
  * docs/language.md.
  */
 import type {Diagnostic, SourceRange} from '../source-range.ts'
+import type {Tone} from './tones.ts'
 
 export interface ParsedVertex {
   /** The id as written, NFC-normalised (so precomposed and decomposed `é` name one vertex). */
@@ -14,6 +15,29 @@ export interface ParsedVertex {
   range: SourceRange
   /** The quoted label (quotes included) where it was first given. */
   labelRange?: SourceRange
+  /** Its tone, `(external)` and the like; absent when none was given. */
+  tone?: Tone
+  /** The `(…)` token where the tone was first given. */
+  toneRange?: SourceRange
+  /** Its link target as written between `<` and `>`, already checked by `checkLinkTarget`. */
+  href?: string
+  /** The `<…>` token where the link was first given. */
+  hrefRange?: SourceRange
+  /** Index into `ParsedDiagram.tiers` of the tier it is listed in; absent for a vertex in no tier. */
+  tier?: number
+}
+
+/** A tier: `tier services "Services": api, billing`. */
+export interface ParsedTier {
+  /** The name, NFC-normalised; unique within a diagram. */
+  name: string
+  /** The tier's own label, for a caption beside its row; absent when none was given. */
+  label?: string
+  labelRange?: SourceRange
+  /** The name token on its tier line. */
+  range: SourceRange
+  /** Its vertices in the order listed (the written left-to-right order, for a tie-break). */
+  vertices: number[]
 }
 
 export interface ParsedEdge {
@@ -30,6 +54,10 @@ export interface ParsedEdge {
   arrowRange: SourceRange
   tailRange: SourceRange
   headRange: SourceRange
+  /** The edge's label: `a -> "reads" b`. Absent when none was given. */
+  label?: string
+  /** The quoted edge label where it was first given. */
+  labelRange?: SourceRange
 }
 
 export interface ParsedDiagram {
@@ -44,6 +72,11 @@ export interface ParsedDiagram {
    * Edges (and vertices) from that statement on are then missing.
    */
   edgeLimitReached?: SourceRange
+  /**
+   * The tiers, in the order declared: tier 0 is where edges start (the bottom with `flow=up`), each
+   * later tier further along the flow. Absent when the diagram declares none.
+   */
+  tiers?: ParsedTier[]
 }
 
 /**
@@ -61,6 +94,19 @@ export const parseRuleIds = [
   'conflicting-label',
   'empty-diagram',
   'duplicate-edge',
+  'conflicting-edge-label',
+  'unclosed-bracket',
+  'unknown-tone',
+  'misplaced-tone',
+  'conflicting-tone',
+  'unsafe-link',
+  'misplaced-link',
+  'conflicting-link',
+  'bad-tier-line',
+  'duplicate-tier',
+  'vertex-in-two-tiers',
+  'edge-within-tier',
+  'edge-against-tiers',
   'unknown-option',
   'bad-option-value',
   'duplicate-option'
@@ -69,6 +115,8 @@ export const parseRuleIds = [
 export type ParseRuleId = (typeof parseRuleIds)[number]
 
 export {parseDiagram} from './parser.ts'
+export {tones, toneDescriptions, type Tone} from './tones.ts'
+export {checkLinkTarget, type LinkCheck} from './link.ts'
 export type {ParseSettings} from './parser.ts'
 export type {Flow, DiagramOptions, OptionSpec, OptionValue} from './options.ts'
 export {

@@ -16,6 +16,12 @@ export type Token =
   | {kind: 'label'; value: string; range: SourceRange}
   | {kind: 'arrow'; range: SourceRange}
   | {kind: 'comma'; range: SourceRange}
+  /** `:` (only meaningful after a tier's name). */
+  | {kind: 'colon'; range: SourceRange}
+  /** `(name)`: a tone; `value` is the text between the parentheses, spaces and tabs trimmed. */
+  | {kind: 'tone'; value: string; range: SourceRange}
+  /** `<target>`: a link; `value` is the text between the angle brackets, exactly as written. */
+  | {kind: 'link'; value: string; range: SourceRange}
   /** End of a line (after any comment) or of the text; `range` is empty, at the line ending. */
   | {kind: 'end'; last: boolean; range: SourceRange}
   | {kind: 'error'; diagnostic: Diagnostic}
@@ -36,6 +42,10 @@ const hash = 0x23
 const comma = 0x2c
 const dash = 0x2d
 const greaterThan = 0x3e
+const lessThan = 0x3c
+const colon = 0x3a
+const openParen = 0x28
+const closeParen = 0x29
 const byteOrderMark = 0xfeff
 
 export interface Scanner {
@@ -135,6 +145,24 @@ export function createScanner(text: string): Scanner {
     return error('unterminated-string', 'This label has no closing `"` before the end of the line.', open, at)
   }
 
+  /**
+   * A bracketed token from the opener at `offset` to the first `close` on the same line: a tone
+   * `(…)` or a link `<…>`. Nothing inside is an escape, so the content is taken as written.
+   */
+  function scanBracketed(kind: 'tone' | 'link', close: number): Token {
+    const open = offset
+    let at = open + 1
+    while (at < text.length && !isLineEnding(text.charCodeAt(at)) && text.charCodeAt(at) !== close) at++
+    if (at >= text.length || text.charCodeAt(at) !== close) {
+      const what = kind === 'tone' ? 'This tone has no closing `)` before the end of the line.' : 'This link has no closing `>` before the end of the line.'
+      return error('unclosed-bracket', what, open, at)
+    }
+    const inner = text.slice(open + 1, at)
+    offset = at + 1
+    const value = kind === 'tone' ? inner.replace(/^[ \t]+|[ \t]+$/g, '') : inner
+    return {kind, value, range: range(open, offset)}
+  }
+
   function next(): Token {
     if (atLineEnd) {
       atLineEnd = false
@@ -160,6 +188,12 @@ export function createScanner(text: string): Scanner {
         return {kind: 'arrow', range: range(offset - 2, offset)}
       }
       if (code === quote) return scanLabel()
+      if (code === colon) {
+        offset++
+        return {kind: 'colon', range: range(offset - 1, offset)}
+      }
+      if (code === openParen) return scanBracketed('tone', closeParen)
+      if (code === lessThan) return scanBracketed('link', greaterThan)
       identifier.lastIndex = offset
       const match = identifier.exec(text)
       if (match) {
