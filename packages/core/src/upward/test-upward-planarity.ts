@@ -14,7 +14,9 @@
  *    - every vertex a source or a sink: planar suffices (Di Battista, Liu & Rival, IPL 36, 1990), and
  *      the planarity embedding is checked with the face-assignment condition before it is used;
  *    - otherwise: first the planarity test's own embedding is tried with the face-assignment
- *      condition (cheap, often enough), then the exact branch and bound over all planar embeddings
+ *      condition (cheap, often enough), then core + a new source S before every source + a new
+ *      sink T after every sink + (S, T), an st-digraph, for planarity (sufficient: all sources and
+ *      sinks on the outer face), then the exact branch and bound over all planar embeddings
  *      (embedding-search.ts). When that finds nothing, a second search without the assignment bound
  *      tells "no bimodal embedding at all" from "bimodal embeddings, none upward".
  * 4. The core's embedding is grown back through the reductions (grow-back.ts) and handed to the
@@ -44,9 +46,16 @@ export interface UpwardBudget {
 /**
  * Which path decided: 'planarity' (the graph is not planar), 'reduced' (every component reduced to
  * nothing), 'st', 'sources-sinks', 'first-embedding' (the planarity embedding was already upward),
- * 'search' (branch and bound). With several components, the costliest path taken is named.
+ * 'extremes-outside' (all sources and sinks fit on the outer face), 'search' (branch and bound). With several components, the costliest path taken is named.
  */
-export type UpwardMethod = 'planarity' | 'reduced' | 'st' | 'sources-sinks' | 'first-embedding' | 'search'
+export type UpwardMethod =
+  | 'planarity'
+  | 'reduced'
+  | 'st'
+  | 'sources-sinks'
+  | 'first-embedding'
+  | 'extremes-outside'
+  | 'search'
 
 export type UpwardTestResult =
   | {status: 'upward'; upward: UpwardEmbedding; method: UpwardMethod; searchNodes: number}
@@ -58,7 +67,7 @@ export type UpwardTestResult =
     }
   | {status: 'undecided'; reason: 'budget'; searchNodes: number}
 
-const methodRank: readonly UpwardMethod[] = ['reduced', 'st', 'sources-sinks', 'first-embedding', 'search', 'planarity']
+const methodRank: readonly UpwardMethod[] = ['reduced', 'st', 'sources-sinks', 'first-embedding', 'extremes-outside', 'search', 'planarity']
 
 /**
  * Throws RangeError when g has a directed cycle or a self-loop: the caller checks acyclicity first
@@ -147,8 +156,9 @@ function decideCore(red: Reduction, expired: () => boolean): CoreDecision {
     else mixed++
   }
   const pairs = tail.map((t, e): [number, number] => [t, head[e]!])
-  const tryEmbedding = (emb: RotationSystem, drop: number) => {
-    const r = Array.from(emb.rotation, (x) => Array.from(x).filter((e) => e !== drop))
+  // an embedding of core plus extra edges (ids >= m) and extra vertices (ids >= k), restricted to core
+  const tryEmbedding = (emb: RotationSystem) => {
+    const r = Array.from(emb.rotation.slice(0, k), (x) => Array.from(x).filter((e) => e < m))
     const angles = assignLargeAngles(r, tail, head)
     return angles === null ? null : {rot: r, angles}
   }
@@ -157,14 +167,24 @@ function decideCore(red: Reduction, expired: () => boolean): CoreDecision {
     const s = sources[0]!, t = sinks[0]!
     const withST = testPlanarity(createDigraph(k, [...pairs, [s, t]]))
     if (!withST.planar) return {kind: 'no', method: 'st', reason: 'no-upward-embedding', nodes: 0}
-    const found = tryEmbedding(withST.embedding, m)
+    const found = tryEmbedding(withST.embedding)
     if (found !== null) return {kind: 'yes', method: 'st', rot: found.rot, large: found.angles.large, outerVertex: found.angles.outerVertex, nodes: 0}
   } else {
     const plain = testPlanarity(createDigraph(k, pairs))
     if (plain.planar) {
-      const found = tryEmbedding(plain.embedding, -1)
+      const found = tryEmbedding(plain.embedding)
       const method: UpwardMethod = mixed === 0 ? 'sources-sinks' : 'first-embedding'
       if (found !== null) return {kind: 'yes', method, rot: found.rot, large: found.angles.large, outerVertex: found.angles.outerVertex, nodes: 0}
+      // All sources and sinks on the outer face: a new source S before every source, a new sink T
+      // after every sink, and S -> T make an st-digraph; if that is planar it is upward planar, and
+      // so is the core inside it (sufficient only, so a failure falls through to the search).
+      const S = k, T = k + 1
+      const ends: Array<[number, number]> = [...sources.map((v): [number, number] => [S, v]), ...sinks.map((v): [number, number] => [v, T]), [S, T]]
+      const outer = testPlanarity(createDigraph(k + 2, [...pairs, ...ends]))
+      if (outer.planar) {
+        const inside = tryEmbedding(outer.embedding)
+        if (inside !== null) return {kind: 'yes', method: 'extremes-outside', rot: inside.rot, large: inside.angles.large, outerVertex: inside.angles.outerVertex, nodes: 0}
+      }
     }
   }
 
