@@ -8,6 +8,7 @@
  * the worker module through tsx (Node 20 workers do not inherit the main thread's loader hooks); a
  * built `.js` CLI starts check-worker.js directly.
  */
+import {threadId} from 'node:worker_threads'
 import {Tinypool} from 'tinypool'
 import {openOutcomeCache} from 'remark-upright'
 import {checkFile, type CheckFilesOptions, type FileReport} from './check-files.ts'
@@ -19,20 +20,20 @@ export interface PoolOptions {
   jobs: number
   /** The cache: a folder, memory only (`true`), or none (`false`). */
   cache: {dir: string} | boolean
-  /** Called after each file with the number done so far. */
-  onProgress?: ((done: number) => void) | undefined
+  /** Called after each file with the number done so far and the thread that checked it (0: this one). */
+  onProgress?: ((done: number, thread: number) => void) | undefined
 }
 
 export async function checkFiles(files: readonly string[], options: Omit<CheckFilesOptions, 'cache'>, pool: PoolOptions): Promise<FileReport[]> {
   const jobs = Math.max(1, Math.min(pool.jobs, files.length))
   let done = 0
-  const progress = () => pool.onProgress?.(++done)
+  const progress = (thread: number) => pool.onProgress?.(++done, thread)
   if (jobs === 1) {
     const cache = openOutcomeCache(pool.cache, options.base)
     const reports: FileReport[] = []
     for (const file of files) {
       reports.push(await checkFile(file, {...options, cache}))
-      progress()
+      progress(threadId)
     }
     return reports
   }
@@ -45,9 +46,9 @@ export async function checkFiles(files: readonly string[], options: Omit<CheckFi
     return await Promise.all(
       files.map(async (file) => {
         const task: CheckTask = {file, options, cache: pool.cache}
-        const report = fromPortable((await workers.run(task)) as PortableReport)
-        progress()
-        return report
+        const portable = (await workers.run(task)) as PortableReport
+        progress(portable.thread)
+        return fromPortable(portable)
       })
     )
   } finally {

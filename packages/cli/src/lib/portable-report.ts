@@ -4,6 +4,7 @@
  * positions and body, and its position map, which has done its work, is gone.
  */
 import type {BlockResult, DiagramBlock} from 'remark-upright'
+import {threadId} from 'node:worker_threads'
 import type {FileReport} from './check-files.ts'
 
 export interface PortableResult {
@@ -20,10 +21,13 @@ export interface PortableReport {
   text: string
   results: PortableResult[]
   error?: string
+  /** The worker thread that checked the file (0: the main thread). */
+  thread: number
 }
 
 export function toPortable(report: FileReport): PortableReport {
   const out: PortableReport = {
+    thread: threadId,
     file: report.file,
     display: report.display,
     text: report.text,
