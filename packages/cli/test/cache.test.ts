@@ -1,0 +1,96 @@
+/**
+ * `upright check` and the cache folder: a warm run prints exactly what a cold run printed, a damaged
+ * folder costs only time, `--no-cache` leaves no trace, the default folder sits under the nearest
+ * package.json, and the plugin reads what the CLI wrote.
+ */
+import {existsSync, mkdtempSync, readdirSync, readFileSync, writeFileSync} from 'node:fs'
+import {tmpdir} from 'node:os'
+import path from 'node:path'
+import {describe, expect, it} from 'vitest'
+import {unified} from 'unified'
+import remarkParse from 'remark-parse'
+import remarkDirective from 'remark-directive'
+import remarkRehype from 'remark-rehype'
+import rehypeStringify from 'rehype-stringify'
+import remarkUpright, {openOutcomeCache} from 'remark-upright'
+import {cli} from './support/run-cli.ts'
+import {writeDocsTree} from './support/docs-tree.ts'
+
+const temp = (name: string) => mkdtempSync(path.join(tmpdir(), `upright-${name}-`))
+
+function entries(dir: string): string[] {
+  if (!existsSync(dir)) return []
+  return readdirSync(dir).flatMap((sub) => readdirSync(path.join(dir, sub)).filter((f) => f.endsWith('.entry')).map((f) => path.join(dir, sub, f)))
+}
+
+describe('upright check with a cache folder', () => {
+  const docs = temp('cached-docs')
+  const tree = writeDocsTree(docs, {files: 12, diagrams: 24, seed: 11, maxVertices: 30, failing: 0.15})
+
+  it('prints the same report warm as cold, and as without a cache', async () => {
+    const dir = temp('cache')
+    const fresh = await cli(['check', '--no-cache', '--format', 'json', '.'], docs)
+    const cold = await cli(['check', '--cache-dir', dir, '--format', 'json', '.'], docs)
+    expect(entries(dir)).toHaveLength(tree.diagrams)
+    const warm = await cli(['check', '--cache-dir', dir, '--format', 'json', '.'], docs)
+    expect(cold).toEqual(fresh)
+    expect(warm).toEqual(fresh)
+    const text = await cli(['check', '--no-cache', '.'], docs)
+    expect(await cli(['check', '--cache-dir', dir, '.'], docs)).toEqual(text)
+    expect(fresh.code).toBe(1)
+  })
+
+  it('recomputes when every entry is damaged, and rewrites them', async () => {
+    const dir = temp('cache')
+    const fresh = await cli(['check', '--no-cache', '--format', 'json', '.'], docs)
+    await cli(['check', '--cache-dir', dir, '--format', 'json', '.'], docs)
+    const files = entries(dir)
+    files.forEach((file, i) => {
+      const text = readFileSync(file, 'utf8')
+      // Alternate damages: cut short, or a flipped status inside an otherwise whole entry.
+      writeFileSync(file, i % 2 ? text.slice(0, text.length - 5) : text.replace(/"status":"[a-z-]+"/, '"status":"upward"').replace(/"status":"upward"/, '"status":"cycle"'))
+    })
+    const again = await cli(['check', '--cache-dir', dir, '--format', 'json', '.'], docs)
+    expect(again).toEqual(fresh)
+    for (const file of entries(dir)) expect(readFileSync(file, 'utf8')).not.toBe('')
+    expect(entries(dir)).toHaveLength(tree.diagrams)
+  })
+
+  it('writes nothing with --no-cache', async () => {
+    const dir = temp('cache')
+    await cli(['check', '--no-cache', '--cache-dir', dir, '.'], docs)
+    expect(entries(dir)).toEqual([])
+  })
+
+  it('defaults to node_modules/.cache/upright under the nearest package.json, and to none without one', async () => {
+    const project = temp('project')
+    writeFileSync(path.join(project, 'package.json'), '{"name": "docs-site", "private": true}\n')
+    const pages = path.join(project, 'docs')
+    writeDocsTree(pages, {files: 3, diagrams: 4, seed: 5, maxVertices: 12, failing: 0})
+    expect((await cli(['check', '.'], pages)).code).toBe(0)
+    expect(entries(path.join(project, 'node_modules', '.cache', 'upright'))).toHaveLength(4)
+    // No package.json above: nothing is written anywhere in the tree (tmpdir has none above it).
+    const loose = temp('loose')
+    writeDocsTree(loose, {files: 2, diagrams: 2, seed: 6, maxVertices: 12, failing: 0})
+    expect((await cli(['check', '.'], loose)).code).toBe(0)
+    expect(readdirSync(loose).sort()).toEqual(['section-000'])
+  })
+
+  it('is shared with the plugin: a site build reads what the CLI stored and draws the same figures', async () => {
+    const dir = temp('cache')
+    const page = tree.files[1]!
+    await cli(['check', '--cache-dir', dir, page], docs)
+    const markdown = readFileSync(page, 'utf8')
+    const build = async (cache: false | {dir: string; maxBytes: number}) => {
+      const file = await unified().use(remarkParse).use(remarkDirective).use(remarkUpright, {cache, onFailure: 'warn'}).use(remarkRehype).use(rehypeStringify).process({value: markdown, path: page})
+      return {html: String(file), messages: file.messages.map((m) => [m.line, m.column, m.ruleId, m.reason])}
+    }
+    // A bound of its own makes this a cache object of its own, as in another process.
+    const setting = {dir, maxBytes: 49 * 1024 * 1024}
+    const shared = await build(setting)
+    const stats = openOutcomeCache(setting, docs)!.stats()
+    expect(stats.diskHits).toBe(readFileSync(page, 'utf8').split('```upright').length - 1 + readFileSync(page, 'utf8').split(':::upright').length - 1)
+    expect(shared).toEqual(await build(false))
+    expect(shared.html).toContain('<svg')
+  })
+})
