@@ -6,7 +6,7 @@
 import {describe, expect, it} from 'vitest'
 import {checkDiagram, drawDiagram, labelBox} from '@upright/core'
 import {renderSvg} from '@upright/svg'
-import {elements, parseWithPython} from './support.ts'
+import {elements, parseManyWithPython, parseWithPython} from './support.ts'
 
 const text = [
   'quarry "Stone quarry" -> mason "Mason’s yard", kiln "Lime kiln"',
@@ -16,15 +16,20 @@ const text = [
 ].join('\n')
 
 describe('text → check → layout → SVG', () => {
-  for (const flow of ['up', 'down', 'left', 'right'] as const) {
-    it(`draws and describes every vertex and edge (flow ${flow})`, () => {
-      const check = checkDiagram(text)
-      expect(check.status).toBe('upward')
-      const drawn = drawDiagram(check, {flow})
-      if (!drawn.ok) throw new Error('not drawn')
-      const {layout, labels, ids, st} = drawn.drawing
-      const {svg, hast} = renderSvg({layout, graph: st.graph, labels, ids, title: 'Harbour works'})
+  const flows = ['up', 'down', 'left', 'right'] as const
+  const check = checkDiagram(text)
+  const rendered = flows.map((flow) => {
+    const drawn = drawDiagram(check, {flow})
+    if (!drawn.ok) throw new Error(`not drawn (flow ${flow})`)
+    const {layout, labels, ids, st} = drawn.drawing
+    return {flow, layout, labels, ...renderSvg({layout, graph: st.graph, labels, ids, title: 'Harbour works'})}
+  })
+  // One Python process reads all four SVGs.
+  const views = parseManyWithPython(rendered.map((r) => r.svg))
 
+  rendered.forEach(({flow, layout, labels, hast}, i) => {
+    it(`draws and describes every vertex and edge (flow ${flow})`, () => {
+      expect(check.status).toBe('upward')
       const g = check.graph!
       const all = elements(hast)
       expect(all.filter((e) => e.tagName === 'rect')).toHaveLength(1 + g.vertexCount)
@@ -39,7 +44,7 @@ describe('text → check → layout → SVG', () => {
         expect(n.height).toBeGreaterThanOrEqual(box.height)
       }
 
-      const seen = parseWithPython(svg)
+      const seen = views[i]!
       expect([...seen.texts].sort()).toEqual([...labels].sort())
       const word = {up: 'upward', down: 'downward', left: 'to the left', right: 'to the right'}[flow]
       expect(seen.desc).toContain(`Arrows point ${word}.`)
@@ -48,7 +53,7 @@ describe('text → check → layout → SVG', () => {
       expect(seen.desc).toContain('Lighthouse points to nothing.')
       expect(seen.title).toBe('Harbour works')
     })
-  }
+  })
 
   it('renders a lone vertex and keeps the documented structure', () => {
     const check = checkDiagram('beacon "Beacon"')
