@@ -4,10 +4,16 @@
  *
  * Choice of the general method (measured with `pnpm bench upward`, figures in bench/README.md):
  * answer-preserving reductions (reduce.ts) shrink most real diagrams to nothing or to a small core;
- * st cores and source/sink-only cores are settled by planarity alone; the rest by a branch and bound
- * over planar embeddings built ear by ear, bounded by the fixed-embedding condition over all outer
- * faces (embedding-search.ts). A SAT encoding (Chimani & Zeranski, GD 2012) was not needed to meet
- * the time targets on the North DAGs, so no solver dependency is taken.
+ * st cores and source/sink-only cores are settled by planarity alone, and two cheap sufficient
+ * checks (the planarity embedding as is; all sources and sinks on the outer face) settle many more;
+ * the rest goes to a branch and bound over planar embeddings grown path by path (in the manner of
+ * Demoucron, Malgrange & Pertuiset), pruned by bimodality and bounded by the fixed-embedding
+ * condition over all outer faces, with restarts (embedding-search.ts). On the North DAGs the search
+ * cores have at most 33 vertices and need a few hundred nodes at most, so a SAT encoding
+ * (Chimani & Zeranski, GD 2012) was not needed and no solver dependency is taken.
+ * Single-source digraphs take the same route: the linear-time algorithm of Bertolazzi,
+ * Di Battista, Mannino & Tamassia (SIAM J. Comput. 27, 1998) is not implemented, so their worst
+ * case is exponential too (bounded by the budget).
  */
 export type {UpwardEmbedding} from './upward-embedding.ts'
 export {isBimodal, isBimodalAt, type BimodalResult} from './bimodal.ts'
