@@ -1,0 +1,4 @@
+/** Levels for diagrams with tiers, and exact level planarity with a witness or a certificate. */
+export {testLevelPlanarity, type LevelItem, type LevelPlanarity, type LevelPlanarityOptions} from './level-planarity.ts'
+export {assignLevels, type LevelAssignment} from './level-assignment.ts'
+export {checkLevelDrawing, type LevelDrawingCheck} from './check-level-drawing.ts'

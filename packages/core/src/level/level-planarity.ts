@@ -1,0 +1,340 @@
+/**
+ * Level planarity of a level graph: can every vertex be put on the horizontal line of its level, and
+ * every edge drawn as a y-monotone curve between its ends, with no two edges crossing?
+ *
+ * Method: the satisfiability formulation of Randerath, Speckenmeyer, Boros, Hammer, Kogan, Makino,
+ * Simeone and Čepek, "A satisfiability formulation of problems on level graphs" (Electronic Notes in
+ * Discrete Mathematics 9, 2001).
+ * 1. Make the graph proper: an edge spanning several levels is split at a dummy node on every level
+ *    it passes (a level drawing draws it through one point per level anyway).
+ * 2. One boolean per unordered pair {a, b} of nodes on one level: "a is left of b".
+ * 3. Two segments a→c and b→d between the same two consecutive levels, with a ≠ b and c ≠ d, do not
+ *    cross exactly when left(a, b) = left(c, d). Segments sharing an end never cross.
+ * Their theorem: the graph is level planar if and only if these equations alone (without the clauses
+ * that make each level's relation transitive) are satisfiable. The equations are x = y or x = ¬y, so
+ * satisfiability is 2-colouring a constraint graph by breadth-first search, and an unsatisfiable
+ * system shows an odd cycle of equations: that cycle, mapped back to the input's edges, is the
+ * certificate. Deciding takes O(P + Q) for P pairs of same-level nodes and Q pairs of segments between
+ * consecutive levels (quadratic in the size of the proper graph).
+ *
+ * The witness (left-to-right orders) needs a transitive solution. The theorem says one exists; it is
+ * found here by choosing one truth value per connected component of the equations, with transitivity
+ * propagated (a < b and b < c force a < c) and chronological backtracking. Each propagation costs
+ * O(level width); the search is exponential only in the worst case, so it is bounded by `maxSteps`
+ * and then answers `undecided` (never a wrong answer). Ties are broken towards `rank` (the written
+ * order): each component first gets the value that puts its first pair in rank order.
+ */
+import type {Digraph} from '../graph/digraph.ts'
+
+/** An entry of a level's left-to-right order: a vertex on it, or an edge passing through it. */
+export type LevelItem = {kind: 'vertex'; vertex: number} | {kind: 'edge'; edge: number}
+
+export type LevelPlanarity =
+  | {status: 'planar'; orders: LevelItem[][]}
+  /** `edges`: input edge ids whose segments make an odd cycle of equations (no drawing of them works). */
+  | {status: 'not-planar'; edges: number[]}
+  | {status: 'undecided'}
+
+export interface LevelPlanarityOptions {
+  /** Per vertex: its place in the written order (smaller = further left); default the vertex id. */
+  rank?: ArrayLike<number>
+  /** Propagation steps the witness search may take before answering `undecided`. */
+  maxSteps?: number
+}
+
+/** Throws RangeError unless every edge goes from a lower to a strictly higher level ≥ 0. */
+export function testLevelPlanarity(graph: Digraph, level: ArrayLike<number>, options: LevelPlanarityOptions = {}): LevelPlanarity {
+  const n = graph.vertexCount
+  const rank = options.rank
+  const maxSteps = options.maxSteps ?? 5_000_000
+  for (let v = 0; v < n; v++) {
+    const l = level[v]!
+    if (!Number.isInteger(l) || l < 0) throw new RangeError(`level[${v}] must be a whole number ≥ 0, got ${l}`)
+  }
+
+  // 1. The proper graph: nodes 0..n-1 are the vertices, then one dummy per edge per inner level.
+  const nodeLevel: number[] = []
+  const nodeItem: LevelItem[] = []
+  const nodeRank: number[] = []
+  for (let v = 0; v < n; v++) {
+    nodeLevel.push(level[v]!)
+    nodeItem.push({kind: 'vertex', vertex: v})
+    nodeRank.push(rank ? rank[v]! : v)
+  }
+  /** Segments between consecutive levels: tail node, head node, input edge. */
+  const segTail: number[] = []
+  const segHead: number[] = []
+  const segEdge: number[] = []
+  let maxLevel = 0
+  for (let v = 0; v < n; v++) maxLevel = Math.max(maxLevel, level[v]!)
+  for (let e = 0; e < graph.edgeCount; e++) {
+    const u = graph.tail[e]!
+    const w = graph.head[e]!
+    if (level[w]! <= level[u]!) throw new RangeError(`edge ${e} (${u} -> ${w}) does not go up a level`)
+    let previous = u
+    for (let l = level[u]! + 1; l < level[w]!; l++) {
+      const dummy = nodeLevel.length
+      nodeLevel.push(l)
+      nodeItem.push({kind: 'edge', edge: e})
+      // A dummy sits, by preference, between its ends' ranks; the tail's rank is good enough.
+      nodeRank.push(nodeRank[u]!)
+      segTail.push(previous)
+      segHead.push(dummy)
+      segEdge.push(e)
+      previous = dummy
+    }
+    segTail.push(previous)
+    segHead.push(w)
+    segEdge.push(e)
+  }
+
+  // 2. Nodes per level in preference order; a node's position there names its pair variables.
+  const levels: number[][] = Array.from({length: maxLevel + 1}, () => [])
+  for (let node = 0; node < nodeLevel.length; node++) levels[nodeLevel[node]!]!.push(node)
+  for (const nodes of levels) nodes.sort((a, b) => nodeRank[a]! - nodeRank[b]! || a - b)
+  const position = new Int32Array(nodeLevel.length)
+  const varBase: number[] = []
+  let varCount = 0
+  for (const nodes of levels) {
+    varBase.push(varCount)
+    nodes.forEach((node, i) => (position[node] = i))
+    varCount += (nodes.length * (nodes.length - 1)) / 2
+  }
+  /** Variable of the pair at positions i < j of a level with k nodes. */
+  const pairVar = (l: number, i: number, j: number): number => {
+    const k = levels[l]!.length
+    return varBase[l]! + i * k - (i * (i + 1)) / 2 + (j - i - 1)
+  }
+  /** left(a, b) as a variable and a sign: value(left) = value(var) XOR flip. */
+  const literal = (a: number, b: number): [number, number] => {
+    const l = nodeLevel[a]!
+    const i = position[a]!
+    const j = position[b]!
+    return i < j ? [pairVar(l, i, j), 0] : [pairVar(l, j, i), 1]
+  }
+
+  // 3. Equations between segments of the same band, as an adjacency list with parity.
+  const eqA: number[] = []
+  const eqB: number[] = []
+  const eqParity: number[] = []
+  const eqSegs: number[] = []
+  const segsByBand: number[][] = Array.from({length: maxLevel}, () => [])
+  for (let s = 0; s < segTail.length; s++) segsByBand[nodeLevel[segTail[s]!]!]!.push(s)
+  for (const band of segsByBand) {
+    for (let x = 0; x < band.length; x++) {
+      for (let y = x + 1; y < band.length; y++) {
+        const s = band[x]!
+        const t = band[y]!
+        if (segTail[s] === segTail[t] || segHead[s] === segHead[t]) continue
+        const [va, fa] = literal(segTail[s]!, segTail[t]!)
+        const [vb, fb] = literal(segHead[s]!, segHead[t]!)
+        eqA.push(va)
+        eqB.push(vb)
+        eqParity.push(fa ^ fb)
+        eqSegs.push(s, t)
+      }
+    }
+  }
+  const adjStart = new Int32Array(varCount + 1)
+  for (let q = 0; q < eqA.length; q++) {
+    adjStart[eqA[q]! + 1]!++
+    adjStart[eqB[q]! + 1]!++
+  }
+  for (let v = 0; v < varCount; v++) adjStart[v + 1]! += adjStart[v]!
+  const adj = new Int32Array(2 * eqA.length)
+  const fill = adjStart.slice(0, varCount)
+  for (let q = 0; q < eqA.length; q++) {
+    adj[fill[eqA[q]!]!++] = q
+    adj[fill[eqB[q]!]!++] = q
+  }
+
+  // 2-colouring by BFS: colour = value relative to the component root, which is set to true.
+  const colour = new Int8Array(varCount).fill(-1)
+  const component = new Int32Array(varCount)
+  const parentEq = new Int32Array(varCount).fill(-1)
+  const depth = new Int32Array(varCount)
+  const componentRoots: number[] = []
+  const queue = new Int32Array(varCount)
+  for (let root = 0; root < varCount; root++) {
+    if (colour[root] !== -1) continue
+    const c = componentRoots.length
+    componentRoots.push(root)
+    colour[root] = 0
+    component[root] = c
+    let head = 0
+    let tail = 0
+    queue[tail++] = root
+    while (head < tail) {
+      const x = queue[head++]!
+      for (let p = adjStart[x]!; p < adjStart[x + 1]!; p++) {
+        const q = adj[p]!
+        const y = eqA[q] === x ? eqB[q]! : eqA[q]!
+        const want = colour[x]! ^ eqParity[q]!
+        if (colour[y] === -1) {
+          colour[y] = want
+          component[y] = c
+          parentEq[y] = q
+          depth[y] = depth[x]! + 1
+          queue[tail++] = y
+        } else if (colour[y] !== want) {
+          return {status: 'not-planar', edges: oddCycleEdges(x, y, q)}
+        }
+      }
+    }
+  }
+
+  /** Input edges of the odd cycle: both tree paths up to their meeting point, and the closing equation. */
+  function oddCycleEdges(x: number, y: number, closing: number): number[] {
+    const equations = [closing]
+    let a = x
+    let b = y
+    const up = (v: number): number => {
+      const q = parentEq[v]!
+      equations.push(q)
+      return eqA[q] === v ? eqB[q]! : eqA[q]!
+    }
+    while (depth[a]! > depth[b]!) a = up(a)
+    while (depth[b]! > depth[a]!) b = up(b)
+    while (a !== b) {
+      a = up(a)
+      b = up(b)
+    }
+    const edges = new Set<number>()
+    for (const q of equations) {
+      edges.add(segEdge[eqSegs[2 * q]!]!)
+      edges.add(segEdge[eqSegs[2 * q + 1]!]!)
+    }
+    return [...edges].sort((p, q) => p - q)
+  }
+
+  // The witness: one value per component, transitivity propagated, backtracking on conflict.
+  const members: number[][] = componentRoots.map(() => [])
+  for (let v = 0; v < varCount; v++) members[component[v]!]!.push(v)
+  /** Per level, k×k: +1 when the node at position i is left of the one at j, −1 right, 0 unknown. */
+  const relation = levels.map((nodes) => new Int8Array(nodes.length * nodes.length))
+  /** Level and positions of every variable, for propagation. */
+  const varLevel = new Int32Array(varCount)
+  const varI = new Int32Array(varCount)
+  const varJ = new Int32Array(varCount)
+  levels.forEach((nodes, l) => {
+    for (let i = 0; i < nodes.length; i++) {
+      for (let j = i + 1; j < nodes.length; j++) {
+        const v = pairVar(l, i, j)
+        varLevel[v] = l
+        varI[v] = i
+        varJ[v] = j
+      }
+    }
+  })
+  const assigned = new Int8Array(componentRoots.length).fill(-1)
+  const trail: number[] = []
+  let steps = 0
+
+  /** Give component c the flip `f` (its variables get colour XOR f) and propagate; false on conflict. */
+  function assign(c: number, f: number): boolean {
+    const pending: number[] = [c, f]
+    while (pending.length > 0) {
+      const flip = pending.pop()!
+      const comp = pending.pop()!
+      if (assigned[comp] !== -1) {
+        if (assigned[comp] !== flip) return false
+        continue
+      }
+      assigned[comp] = flip
+      trail.push(comp)
+      for (const v of members[comp]!) {
+        const value = colour[v]! ^ flip
+        // value 0: i left of j (the root's value is "true", colour 0).
+        const [left, right] = value === 0 ? [varI[v]!, varJ[v]!] : [varJ[v]!, varI[v]!]
+        const l = varLevel[v]!
+        const k = levels[l]!.length
+        const rel = relation[l]!
+        rel[left * k + right] = 1
+        rel[right * k + left] = -1
+        for (let w = 0; w < k; w++) {
+          if (++steps > maxSteps) return false
+          if (w === left || w === right) continue
+          // left < right and right < w force left < w; w < left forces w < right.
+          if (rel[right * k + w] === 1 && !force(l, left, w, pending)) return false
+          if (rel[w * k + left] === 1 && !force(l, w, right, pending)) return false
+        }
+      }
+    }
+    return true
+  }
+
+  /** Require position a left of position b on level l: conflict, nothing to do, or a pending flip. */
+  function force(l: number, a: number, b: number, pending: number[]): boolean {
+    const k = levels[l]!.length
+    const known = relation[l]![a * k + b]!
+    if (known === 1) return true
+    if (known === -1) return false
+    const v = a < b ? pairVar(l, a, b) : pairVar(l, b, a)
+    // Wanted value of v: 0 when the smaller position is on the left.
+    const value = a < b ? 0 : 1
+    pending.push(component[v]!, colour[v]! ^ value)
+    return true
+  }
+
+  function undoTo(mark: number): void {
+    while (trail.length > mark) {
+      const comp = trail.pop()!
+      for (const v of members[comp]!) {
+        const k = levels[varLevel[v]!]!.length
+        relation[varLevel[v]!]![varI[v]! * k + varJ[v]!] = 0
+        relation[varLevel[v]!]![varJ[v]! * k + varI[v]!] = 0
+      }
+      assigned[comp] = -1
+    }
+  }
+
+  // Iterative depth-first search over components in order; the preferred flip (0: the root pair in
+  // rank order) first.
+  const choice: number[] = []
+  const marks: number[] = []
+  let next = 0
+  for (;;) {
+    while (next < componentRoots.length && assigned[next] !== -1) next++
+    if (next === componentRoots.length) break
+    marks.push(trail.length)
+    choice.push(next)
+    if (assign(next, 0)) continue
+    if (steps > maxSteps) return {status: 'undecided'}
+    // Backtrack to the latest decision that still has its second value to try.
+    let resolved = false
+    while (choice.length > 0) {
+      const c = choice.pop()!
+      const mark = marks.pop()!
+      const triedSecond = c < 0
+      undoTo(mark)
+      if (triedSecond) continue
+      marks.push(trail.length)
+      choice.push(-1 - c)
+      if (assign(c, 1)) {
+        resolved = true
+        break
+      }
+      if (steps > maxSteps) return {status: 'undecided'}
+    }
+    if (!resolved) {
+      // The theorem says a transitive solution exists once the equations are satisfiable.
+      throw new Error('level planarity: equations satisfiable but no transitive solution found')
+    }
+    // Every component before the one just decided was already set when it was chosen.
+    next = -1 - choice.at(-1)!
+  }
+
+  const orders = levels.map((nodes, l) => {
+    const k = nodes.length
+    const rel = relation[l]!
+    const leftOf = (i: number): number => {
+      let count = 0
+      for (let j = 0; j < k; j++) if (rel[j * k + i] === 1) count++
+      return count
+    }
+    const placed: LevelItem[] = new Array(k)
+    for (let i = 0; i < k; i++) placed[leftOf(i)] = nodeItem[nodes[i]!]!
+    return placed
+  })
+  return {status: 'planar', orders}
+}
