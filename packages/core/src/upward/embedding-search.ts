@@ -4,7 +4,7 @@
  * as the bound (see large-angle-assignment.ts).
  *
  * The embedding grows path by path in the manner of the planarity algorithm of Demoucron, Malgrange &
- * Pertuiset (1964): relative to the placed subgraph H, the rest of G splits into fragments (an
+ * Pertuiset (Rev. Française Rech. Opér. 8, 1964; cited from memory): relative to the placed subgraph H, the rest of G splits into fragments (an
  * unplaced edge between placed vertices, or a component of unplaced vertices with its attachment
  * edges). In any planar embedding of G extending H's, a fragment lies inside one face of H that holds
  * all its attachments, and a path through it runs between one corner of each end in that face. So
@@ -16,7 +16,9 @@
  * - a vertex that is not bimodal stays so when edges are added around it;
  * - a subgraph of an upward drawing is drawn upward, so a partial embedding that admits no upward
  *   drawing for any outer face cannot be completed; moreover a vertex that is so far a sink (source)
- *   but still has an out-edge (in-edge) to place must have its large angle where that edge can go.
+ *   but still has an out-edge (in-edge) to place must have its large angle where that edge can go;
+ * - mirror images are both upward or both not, so the first branching off a lone cycle takes one of
+ *   its two faces only.
  *
  * Exponential in the worst case (the problem is NP-complete: Garg & Tamassia, SIAM J. Comput. 31,
  * 2001); the caller's budget bounds the time. Each node costs O(m·F) for faces and fragments plus the

@@ -17,8 +17,9 @@
  *      condition (cheap, often enough), then core + a new source S before every source + a new
  *      sink T after every sink + (S, T), an st-digraph, for planarity (sufficient: all sources and
  *      sinks on the outer face), then the exact branch and bound over all planar embeddings
- *      (embedding-search.ts). When that finds nothing, a second search without the assignment bound
- *      tells "no bimodal embedding at all" from "bimodal embeddings, none upward".
+ *      (embedding-search.ts), restarted from other roots with growing node caps. When it finds
+ *      nothing, the reason is "no bimodal embedding at all" if only bimodality ever cut the search,
+ *      or if a bimodal-only search of similar size finishes empty; else "no upward embedding".
  * 4. The core's embedding is grown back through the reductions (grow-back.ts) and handed to the
  *    fixed-embedding test (fixed-embedding.ts), which returns the UpwardEmbedding of the input graph.
  * Only the search in 3 is exponential (the problem is NP-complete, Garg & Tamassia 2001); all else is
