@@ -206,7 +206,7 @@ function buildTree(input: RenderInput, settings: Settings): Root {
     [
       s('title', {id: `${prefix}-title`}, title),
       s('desc', {id: `${prefix}-desc`}, desc),
-      s('style', stylesheet(prefix, settings.theme)),
+      s('style', stylesheet(prefix, settings.theme, `${f(fontSize)}px ${FONT_STACK}`)),
       s('rect', {
         className: [CLASS.background],
         x: f(-margin),

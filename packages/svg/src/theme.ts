@@ -107,8 +107,12 @@ function privateProperties(p: Palette): string {
   return `--_bg:${p.background};--_nf:${p.nodeFill};--_ns:${p.nodeStroke};--_nt:${p.nodeText};--_es:${p.edgeStroke};--_af:${p.arrowFill}`
 }
 
-/** The stylesheet for the diagram whose root element has id `id`. */
-export function stylesheet(id: string, theme: ResolvedTheme): string {
+/**
+ * The stylesheet for the diagram whose root element has id `id`. `font` is the CSS font shorthand
+ * the boxes were measured with: it is pinned on the text elements by id so that a site rule such as
+ * `svg text {font-size: 12px}` cannot make labels outgrow their boxes.
+ */
+export function stylesheet(id: string, theme: ResolvedTheme, font: string): string {
   const s = `#${id}`
   const first = theme.scheme === 'dark' ? theme.dark : theme.light
   const rules = [
@@ -120,6 +124,7 @@ export function stylesheet(id: string, theme: ResolvedTheme): string {
     `${s} .${CLASS.boxes}{fill:var(--upright-node-fill,var(--_nf));stroke:var(--upright-node-stroke,var(--_ns));` +
       `stroke-width:var(--upright-node-stroke-width,${NODE_STROKE_WIDTH}px)}`,
     `${s} .${CLASS.labels}{fill:var(--upright-node-text,var(--_nt))}`,
+    `${s} text{font:${font}}`,
     `${s} .${CLASS.lines}{fill:none;stroke:var(--upright-edge-stroke,var(--_es));` +
       `stroke-width:var(--upright-edge-stroke-width,${EDGE_STROKE_WIDTH}px)}`,
     `${s} .${CLASS.arrows}{fill:var(--upright-arrow-fill,var(--upright-edge-stroke,var(--_af)))}`,

@@ -130,6 +130,14 @@ describe.skipIf(!executable && !process.env['CI'])('in Chromium with DejaVu Sans
     expect(custom['box']).toBe('#ffeedd')
     expect(custom['line']).toBe('#112233')
     expect(custom['arrow']).toBe('#112233') // arrows follow the edge colour unless set apart
+    // The measured font stays on the labels whatever generic rules the site has.
+    const fontTab = await browser.newPage()
+    await fontTab.setContent(`<style>svg text{font-size:30px;font-family:serif}</style>${svg}`)
+    expect(await fontTab.evaluate(() => {
+      const cs = getComputedStyle(document.querySelector('.upright-labels text')!)
+      return [cs.fontSize, cs.fontFamily]
+    })).toEqual(['14px', '"DejaVu Sans", "Bitstream Vera Sans", Verdana, sans-serif'])
+    await fontTab.close()
     // Sizing yields to any site rule; paints yield to the custom properties only.
     const tab = await browser.newPage()
     await tab.setContent(`<style>.upright{max-width:none}</style><div style="width:100px">${svg}</div>`)
