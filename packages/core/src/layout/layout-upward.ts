@@ -165,7 +165,10 @@ export function layoutUpward(input: LayoutInput): Layout {
   for (let v = 0; v < n; v++) bandHalf[layerOf[v]!] = Math.max(bandHalf[layerOf[v]!]!, halfV[v]!)
   const centre = new Float64Array(layerCount)
   for (let l = 0; l < layerCount; l++) {
-    centre[l] = l === 0 ? bandHalf[0]! : centre[l - 1]! + bandHalf[l - 1]! + spacing.layer + bandHalf[l]!
+    // Next to a layer of bends only (no box), half the gap: nothing there needs room for a label or
+    // an arrowhead, and any positive gap keeps the drawing crossing-free.
+    const gap = bandHalf[l - 1] === 0 || bandHalf[l] === 0 ? spacing.layer / 2 : spacing.layer
+    centre[l] = l === 0 ? bandHalf[0]! : centre[l - 1]! + bandHalf[l - 1]! + gap + bandHalf[l]!
   }
   // Each object's column: from halfway to its left neighbour to halfway to its right neighbour. In a
   // band, everything belonging to an object (its box and ports, or its bend) stays strictly inside.
