@@ -8,6 +8,12 @@ export type Certificate =
   | {kind: 'cycle'; vertices: string[]}
   | {kind: 'kuratowski'; type: 'K5' | 'K3,3'; branch: string[]; edges: UserEdge[]}
   | {kind: 'obstruction'; edges: UserEdge[]}
+  /**
+   * With tiers: `crossing` — these edges cannot be drawn on their levels without two crossing;
+   * `path-against-tiers` — these edges, in order, lead from a tier through vertices in no tier back to
+   * the same or an earlier tier.
+   */
+  | {kind: 'level'; problem: 'crossing' | 'path-against-tiers'; edges: UserEdge[]}
 
 /**
  * Every outcome of checking one diagram. `upward` is the only passing one; `too-large` means a size

@@ -10,7 +10,8 @@ import type {Diagnostic} from '../source-range.ts'
 import type {Certificate, DiagramStatus} from './certificate.ts'
 import {testPlanarity} from '../planarity/index.ts'
 import {findMinimalObstruction, testUpwardPlanarity, type UpwardEmbedding} from '../upward/index.ts'
-import {cycleFailure, kuratowskiFailure, obstructionFailure, undecidedDiagnostic} from './failures.ts'
+import {cycleFailure, kuratowskiFailure, levelCrossingFailure, obstructionFailure, tierPathFailure, undecidedDiagnostic} from './failures.ts'
+import {assignLevels, joinLabelledEdges, originalEdge, splitLabelledEdges, testLevelPlanarity, type EdgeLabelGraph, type LevelItem} from '../level/index.ts'
 import {checkParsedLimits, checkTextLimits, resolveLimits, tooManyEdges, type Limits} from './limits.ts'
 
 export interface CheckSettings {
@@ -34,6 +35,27 @@ export interface DiagramCheck {
   graph?: Digraph
   /** For status `upward`: the upward embedding the drawing is built from. */
   upward?: UpwardEmbedding
+  /**
+   * Once the graph is known, when some edge has a label: the graph with each labelled edge split at a
+   * label vertex (numbering in level/edge-label-graph.ts: vertex n + k labels `labelledEdges[k]`), and
+   * for status `upward` its upward embedding, which places every label vertex. `upward` above is the
+   * same embedding with the label vertices taken out.
+   */
+  labels?: EdgeLabelGraph & {upward?: UpwardEmbedding}
+  /**
+   * For status `upward` when the diagram declares tiers: the level of every vertex (of `labels.graph`
+   * when there are edge labels, else of `graph`), each tier's level, and per level the left-to-right
+   * order of its vertices and of the edges passing through it (edge ids of that same graph). Drawn
+   * with these levels and orders, every edge going straight from one level to the next, the picture is
+   * upward and crossing-free.
+   */
+  levels?: DiagramLevels
+}
+
+export interface DiagramLevels {
+  level: Int32Array
+  tierLevel: Int32Array
+  orders: LevelItem[][]
 }
 
 export function checkDiagram(text: string, settings: Readonly<CheckSettings> = {}): DiagramCheck {
@@ -70,14 +92,89 @@ export function checkDiagram(text: string, settings: Readonly<CheckSettings> = {
     return {status: 'nonplanar', diagnostics: [...diagnostics, failure.diagnostic], certificate: failure.certificate, parsed, graph}
   }
 
-  const upward = testUpwardPlanarity(graph, {maxMillis: deadline - now(), now})
-  if (upward.status === 'upward') return {status: 'upward', diagnostics, parsed, graph, upward: upward.upward}
-  if (upward.status === 'undecided') {
-    return {status: 'undecided', diagnostics: [...diagnostics, undecidedDiagnostic(parsed, budgetMillis)], parsed, graph}
+  // Edge labels: run the exact checks on the graph with every labelled edge split at its label.
+  const labelled = parsed.edges.flatMap((edge, e) => (edge.label === undefined ? [] : [e]))
+  const split = labelled.length > 0 ? splitLabelledEdges(graph, labelled) : undefined
+  const work = split?.graph ?? graph
+  const withLabels = split ? {labels: split} : {}
+
+  let levels: DiagramLevels | undefined
+  if (parsed.tiers) {
+    const tiered = checkTiers(parsed, graph, split, work)
+    if (!tiered.ok) {
+      if (tiered.failure === undefined) {
+        return {status: 'undecided', diagnostics: [...diagnostics, undecidedDiagnostic(parsed, budgetMillis)], parsed, graph, ...withLabels}
+      }
+      return {status: 'not-upward', diagnostics: [...diagnostics, tiered.failure.diagnostic], certificate: tiered.failure.certificate, parsed, graph, ...withLabels}
+    }
+    levels = tiered.levels
   }
+
+  const upward = testUpwardPlanarity(work, {maxMillis: deadline - now(), now})
+  if (upward.status === 'upward') {
+    const original = split ? joinLabelledEdges(split, graph, upward.upward) : upward.upward
+    return {
+      status: 'upward',
+      diagnostics,
+      parsed,
+      graph,
+      upward: original,
+      ...(split ? {labels: {...split, upward: upward.upward}} : {}),
+      ...(levels ? {levels} : {})
+    }
+  }
+  if (upward.status === 'undecided') {
+    return {status: 'undecided', diagnostics: [...diagnostics, undecidedDiagnostic(parsed, budgetMillis)], parsed, graph, ...withLabels}
+  }
+  // A level drawing is an upward drawing, so this cannot happen with levels found.
+  if (levels) throw new Error('checkDiagram: a level planar diagram was found not upward planar')
   // Not upward: narrow it down to an edge-minimal obstruction with what is left of the budget.
   const obstruction = findMinimalObstruction(graph, {maxMillis: Math.max(0, deadline - now()), now})
   const edges = obstruction.ok ? obstruction.edges : [...Array(graph.edgeCount).keys()]
   const failure = obstructionFailure(parsed, edges, obstruction.ok)
-  return {status: 'not-upward', diagnostics: [...diagnostics, failure.diagnostic], certificate: failure.certificate, parsed, graph}
+  return {status: 'not-upward', diagnostics: [...diagnostics, failure.diagnostic], certificate: failure.certificate, parsed, graph, ...withLabels}
+}
+
+type TierCheck = {ok: true; levels: DiagramLevels} | {ok: false; failure: ReturnType<typeof levelCrossingFailure> | undefined}
+
+/**
+ * Tiers: levels for every vertex (level/level-assignment.ts), then exact level planarity on them. A
+ * "no" is narrowed to an edge-minimal set by deleting edges one at a time while the rest stays non-level
+ * planar (on the same levels), as long as the set is small.
+ */
+function checkTiers(parsed: ParsedDiagram, graph: Digraph, split: EdgeLabelGraph | undefined, work: Digraph): TierCheck {
+  const n = parsed.vertices.length
+  const tierOf = new Int32Array(work.vertexCount).fill(-1)
+  // Ties go to the written order: a tier's listing first, then first mention; a label sits with its edge.
+  const rank = new Float64Array(work.vertexCount)
+  parsed.vertices.forEach((vertex, v) => {
+    if (vertex.tier !== undefined) tierOf[v] = vertex.tier
+    rank[v] = n + v
+  })
+  for (const tier of parsed.tiers!) tier.vertices.forEach((v, i) => (rank[v] = i))
+  split?.labelledEdges.forEach((e, k) => (rank[n + k] = rank[graph.tail[e]!]! + 0.5))
+  const toParsed = (e: number): number => (split ? originalEdge(split, graph, e) : e)
+  const unique = (edges: number[]): number[] => [...new Set(edges.map(toParsed))]
+
+  const assigned = assignLevels(work, tierOf, parsed.tiers!.length)
+  if (!assigned.ok) return {ok: false, failure: tierPathFailure(parsed, unique(assigned.path))}
+  const result = testLevelPlanarity(work, assigned.level, {rank})
+  if (result.status === 'planar') return {ok: true, levels: {level: assigned.level, tierLevel: assigned.tierLevel, orders: result.orders}}
+  if (result.status === 'undecided') return {ok: false, failure: undefined}
+
+  let kept = unique(result.edges).sort((a, b) => a - b)
+  const minimal = kept.length <= 200
+  if (minimal) {
+    const stillFails = (edges: number[]): boolean => {
+      const keep = new Set(edges)
+      const pairs: Array<[number, number]> = []
+      for (let e = 0; e < work.edgeCount; e++) if (keep.has(toParsed(e))) pairs.push([work.tail[e]!, work.head[e]!])
+      return testLevelPlanarity(createDigraph(work.vertexCount, pairs), assigned.level, {rank}).status === 'not-planar'
+    }
+    for (const e of [...kept]) {
+      const without = kept.filter((f) => f !== e)
+      if (stillFails(without)) kept = without
+    }
+  }
+  return {ok: false, failure: levelCrossingFailure(parsed, kept, minimal)}
 }

@@ -76,6 +76,51 @@ export function obstructionFailure(parsed: ParsedDiagram, edges: number[], minim
   }
 }
 
+function userEdge(parsed: ParsedDiagram, e: number): [string, string] {
+  return [vertexName(parsed, parsed.edges[e]!.from), vertexName(parsed, parsed.edges[e]!.to)]
+}
+
+/** Tiers: edges (parsed ids) that cannot be drawn on their levels without a crossing. */
+export function levelCrossingFailure(parsed: ParsedDiagram, edges: number[], minimal: boolean): Failure {
+  const last = edges.reduce((a, b) => (parsed.edges[b]!.range.start.offset > parsed.edges[a]!.range.start.offset ? b : a))
+  const reason = minimal
+    ? `With the tiers as declared, these ${plural(edges.length, 'edge')} cannot all be drawn without two of them crossing; removing any one of them, e.g. \`${edgeName(parsed, last)}\`, makes them drawable.`
+    : `With the tiers as declared, these ${plural(edges.length, 'edge')} cannot all be drawn without two of them crossing.`
+  return {
+    certificate: {kind: 'level', problem: 'crossing', edges: edges.map((e) => userEdge(parsed, e))},
+    diagnostic: {
+      severity: 'error',
+      ruleId: 'tiers-not-drawable',
+      reason,
+      range: parsed.edges[last]!.range,
+      note: 'Each tier is drawn as one row and every vertex in no tier sits on the first row above all of its predecessors; no left-to-right order of the rows lets these edges pass each other (checked exactly, with the method of Randerath et al. 2001). Move a vertex to another tier, take it out of the tiers, or remove one of these edges.',
+      related: edges.map((e) => ({range: parsed.edges[e]!.range, reason: `\`${edgeName(parsed, e)}\` is involved`}))
+    }
+  }
+}
+
+/** Tiers: a path (parsed edge ids, in order) from a tier through untiered vertices back to the same or an earlier tier. */
+export function tierPathFailure(parsed: ParsedDiagram, path: number[]): Failure {
+  const first = parsed.vertices[parsed.edges[path[0]!]!.from]!
+  const lastVertex = parsed.vertices[parsed.edges[path.at(-1)!]!.to]!
+  const tiers = parsed.tiers ?? []
+  const from = tiers[first.tier!]!.name
+  const to = tiers[lastVertex.tier!]!.name
+  const walk = [first.key, ...path.map((e) => vertexName(parsed, parsed.edges[e]!.to))].join(' -> ')
+  const where = from === to ? `back into tier \`${to}\`` : `back to the earlier tier \`${to}\``
+  return {
+    certificate: {kind: 'level', problem: 'path-against-tiers', edges: path.map((e) => userEdge(parsed, e))},
+    diagnostic: {
+      severity: 'error',
+      ruleId: 'path-against-tiers',
+      reason: `The path \`${walk}\` leaves tier \`${from}\` and leads ${where} through vertices in no tier, so its edges cannot all point the way the tiers go.`,
+      range: parsed.edges[path.at(-1)!]!.range,
+      note: 'Tiers are drawn in the order declared and every edge points from an earlier row to a later one, so a path can never return to its own tier or an earlier one. Put the vertices on the path in a tier of their own, change the tier order, or reverse an edge.',
+      related: path.map((e) => ({range: parsed.edges[e]!.range, reason: `\`${edgeName(parsed, e)}\` is on the path`}))
+    }
+  }
+}
+
 export function undecidedDiagnostic(parsed: ParsedDiagram, budgetMillis: number): Diagnostic {
   return {
     severity: 'error',

@@ -2,3 +2,4 @@
 export {testLevelPlanarity, type LevelItem, type LevelPlanarity, type LevelPlanarityOptions} from './level-planarity.ts'
 export {assignLevels, type LevelAssignment} from './level-assignment.ts'
 export {checkLevelDrawing, type LevelDrawingCheck} from './check-level-drawing.ts'
+export {splitLabelledEdges, joinLabelledEdges, originalEdge, type EdgeLabelGraph} from './edge-label-graph.ts'
