@@ -190,12 +190,12 @@ function decideCore(red: Reduction, expired: () => boolean): CoreDecision {
   }
 
   // Restarts (common practice against the heavy tails of backtracking search; Gomes, Selman & Kautz,
-  // AAAI 1998): runs capped at 256, 512, 1024, ... nodes, each grown from another root vertex, until
+  // AAAI 1998): runs capped at 1024, 2048, 4096, ... nodes, each grown from another root vertex, until
   // one finds an embedding or finishes its search (a finished search is a proof of "no").
   let spent = 0
   let out: ReturnType<typeof searchUpwardEmbedding>
   for (let attempt = 0; ; attempt++) {
-    let left = 256 * 2 ** attempt
+    let left = 1024 * 2 ** attempt
     const root = (attempt * 7919) % k
     let capped = false
     out = searchUpwardEmbedding(k, tail, head, 'upward', () => {
