@@ -5,7 +5,7 @@
 import {readFile} from 'node:fs/promises'
 import path from 'node:path'
 import {defaultBudgetMillis, type DiagramOptions, type Flow, type Limits, type Point} from '@upright/core'
-import {checkTree, parseMarkdown, type BlockMessage, type BlockResult, type DiagramBlock, type OutcomeCache} from 'remark-upright'
+import {checkTree, parseMarkdown, type BlockMessage, type BlockResult, type DiagramBlock, type OutcomeCache} from 'remark-upright/check'
 import {checkBlockBody} from './check-bare.ts'
 import {describeFsError} from './collect-files.ts'
 

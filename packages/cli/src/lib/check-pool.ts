@@ -10,7 +10,7 @@
  */
 import {threadId} from 'node:worker_threads'
 import {Tinypool} from 'tinypool'
-import {openOutcomeCache} from 'remark-upright'
+import {openOutcomeCache} from 'remark-upright/check'
 import {checkFile, type CheckFilesOptions, type FileReport} from './check-files.ts'
 import type {CheckTask} from './check-worker.ts'
 import {fromPortable, type PortableReport} from './portable-report.ts'

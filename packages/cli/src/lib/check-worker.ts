@@ -3,7 +3,7 @@
  * single-threaded path, through its own view of the shared cache folder (writes are atomic, so
  * threads and processes can share it).
  */
-import {openOutcomeCache} from 'remark-upright'
+import {openOutcomeCache} from 'remark-upright/check'
 import {checkFile, type CheckFilesOptions} from './check-files.ts'
 import {toPortable, type PortableReport} from './portable-report.ts'
 

@@ -10,11 +10,10 @@ import {checkFiles} from './check-pool.ts'
 import {parseShard, selectShard, type Shard} from './shard.ts'
 import {createProgressBar} from './progress-bar.ts'
 import {findCacheDir} from '@upright/cache'
-import {openOutcomeCache} from 'remark-upright'
+import {openOutcomeCache} from 'remark-upright/check'
 import {availableParallelism} from 'node:os'
 import {toJsonReport} from './format-json.ts'
 import {formatText, summarize} from './format-text.ts'
-import {drawFile, layoutJson, renderFileSvg} from './draw-file.ts'
 import {writeFile} from 'node:fs/promises'
 import path from 'node:path'
 
@@ -70,14 +69,14 @@ export async function run(argv: readonly string[], io: Io): Promise<number> {
         .addOption(new Option('--format <format>', 'output format').choices(['json']).default('json'))
         .option('--stats', 'add area, aspect ratio, bends, total edge length and crossings')
         .action(async (file: string, opts: DrawOpts & {stats?: boolean}) => {
-          exit = await draw(file, opts, io, (drawing) => JSON.stringify(layoutJson(drawing, Boolean(opts.stats))) + '\n')
+          exit = await draw(file, opts, io, (drawing, _title, lib) => JSON.stringify(lib.layoutJson(drawing, Boolean(opts.stats))) + '\n')
         })
     } else {
       command
         .description('write the drawing as an optimized, accessible SVG')
         .option('-o, --output <file>', 'write to this file instead of standard output')
         .action(async (file: string, opts: DrawOpts & {output?: string}) => {
-          exit = await draw(file, opts, io, (drawing, title) => renderFileSvg(drawing, title) + '\n', opts.output)
+          exit = await draw(file, opts, io, (drawing, title, lib) => lib.renderFileSvg(drawing, title) + '\n', opts.output)
         })
     }
   }
@@ -106,11 +105,13 @@ async function draw(
   file: string,
   opts: DrawOpts,
   io: Io,
-  format: (drawing: import('@upright/core').Drawing, title: string | undefined) => string,
+  format: (drawing: import('@upright/core').Drawing, title: string | undefined, lib: typeof import('./draw-file.ts')) => string,
   output?: string
 ): Promise<number> {
   const base = baseDirectory(io)
-  const result = await drawFile(path.resolve(base, file), {base, ...opts})
+  // Loaded here so that `check` never loads the drawing code (the SVG optimizer is slow to load).
+  const lib = await import('./draw-file.ts')
+  const result = await lib.drawFile(path.resolve(base, file), {base, ...opts})
   if (!result.ok) {
     if (result.problem === 'no-such-diagram') {
       io.stderr.write(`upright: ${file} has ${result.report.results.length} diagram(s); there is no diagram ${opts.diagram}\n`)
@@ -120,7 +121,7 @@ async function draw(
     io.stderr.write(formatText([result.report], {colour}))
     return result.problem === 'unreadable' ? exitCodes.usage : exitCodes.failed
   }
-  const text = format(result.drawing, result.title)
+  const text = format(result.drawing, result.title, lib)
   if (output) {
     try {
       await writeFile(path.resolve(base, output), text)

@@ -6,15 +6,14 @@
 import type {Root} from 'mdast'
 import type {VFile} from 'vfile'
 import type {VFileMessage} from 'vfile-message'
-import type {CheckSettings, Flow, Limits} from '@upright/core'
+import type {Flow, Limits} from '@upright/core'
 import type {Root as HastRoot} from 'hast'
 import type {RootContent} from 'mdast'
 import {defaultBudgetMillis, resolveLimits} from '@upright/core'
-import {findDiagramBlocks} from './blocks.ts'
-import {openOutcomeCache, type CacheSetting, type OutcomeCache} from './cache.ts'
-import {checkBlock, rememberResult, type BlockMessage, type BlockResult} from './check-block.ts'
+import {openOutcomeCache, type CacheSetting} from './cache.ts'
+import {checkBlock, rememberResult, type BlockMessage} from './check-block.ts'
+import {checkSettings, checkTree, type TreeSettings} from './check-tree.ts'
 import {drawBlock, figureNode, replaceBlock, type Output} from './render-block.ts'
-import {indexLines} from './source-lines.ts'
 
 export interface Options {
   /** Direction every edge points in diagrams that do not set `flow` (default: `'up'`). */
@@ -119,33 +118,8 @@ export default function remarkUpright(options?: Readonly<Options> | null | undef
   }
 }
 
-/** Check every diagram in a parsed document. Exported for the CLI, which reports on its own. */
-export function checkTree(
-  tree: Root,
-  text: string,
-  settings: TreeSettings
-): BlockResult[] {
-  const lines = indexLines(text)
-  const defaults = settings.flow ? {flow: settings.flow} : {}
-  const results = findDiagramBlocks(tree, lines).map((block) => checkBlock(block, defaults, checkSettings(settings), settings.cache))
-  // Results about to be drawn are stored with their drawing, by the caller.
-  if (!settings.drawLater) for (const result of results) rememberResult(settings.cache, result)
-  return results
-}
-
-export interface TreeSettings {
-  flow?: Flow | undefined
-  budget?: number | undefined
-  limits?: Readonly<Partial<Limits>> | undefined
-  /** Where to look results up and store them (see `openOutcomeCache`). */
-  cache?: OutcomeCache | undefined
-  /** The caller draws passing diagrams and stores every result itself (the plugin does). */
-  drawLater?: boolean | undefined
-}
-
-function checkSettings(settings: TreeSettings): CheckSettings {
-  return {budgetMillis: settings.budget ?? defaultBudgetMillis, limits: settings.limits}
-}
+export {checkTree}
+export type {TreeSettings}
 
 function report(file: VFile, message: BlockMessage, asError: boolean, rulesUrl: string): VFileMessage[] {
   const m = file.message(message.reason, {
