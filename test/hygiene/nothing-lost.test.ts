@@ -9,7 +9,18 @@ import remarkParse from 'remark-parse'
 import remarkUpright from 'remark-upright'
 import {unified} from 'unified'
 import {describe, expect, it} from 'vitest'
-import type {Root, RootContent} from 'mdast'
+
+/** The part of an mdast node these checks read (the mdast types are not a dependency of the root). */
+interface MdNode {
+  type: string
+  lang?: string | null
+  name?: string
+  value?: string
+  attributes?: Record<string, string | null | undefined> | null
+  children?: MdNode[]
+}
+type Root = MdNode
+type RootContent = MdNode
 
 /** Every diagram that passes has the comment `# passes` on its first body line. */
 const markdown = `# Millbrook handbook
@@ -91,30 +102,30 @@ Last paragraph with a [reference][ref].
 `
 
 function parse(): Root {
-  return unified().use(remarkParse).use(remarkDirective).parse(markdown)
+  return unified().use(remarkParse).use(remarkDirective).parse(markdown) as MdNode
 }
 
 const isPassingDiagram = (node: RootContent): boolean =>
-  (node.type === 'code' && node.lang === 'upright' && node.value.startsWith('# passes')) ||
+  (node.type === 'code' && node.lang === 'upright' && (node.value ?? '').startsWith('# passes')) ||
   (node.type === 'containerDirective' && node.name === 'upright' && node.attributes?.['title'] === 'Directive')
 
-const isFigure = (node: RootContent): boolean => node.type === ('uprightFigure' as string) || (node.type === 'html' && node.value.startsWith('<figure class="upright"'))
+const isFigure = (node: RootContent): boolean => node.type === 'uprightFigure' || (node.type === 'html' && (node.value ?? '').startsWith('<figure class="upright"'))
 
 /** A deep copy without the nodes `drop` matches; returns how many were dropped. */
 function without(tree: Root, drop: (node: RootContent) => boolean): {tree: Root; dropped: number} {
   let dropped = 0
   const copy = (node: Root | RootContent): Root | RootContent => {
-    if (!('children' in node)) return structuredClone(node)
-    const children = (node.children as RootContent[]).filter((child) => {
+    if (!node.children) return structuredClone(node)
+    const children = node.children.filter((child) => {
       if (drop(child)) {
         dropped++
         return false
       }
       return true
     })
-    return {...structuredClone({...node, children: []}), children: children.map(copy)} as Root | RootContent
+    return {...structuredClone({...node, children: []}), children: children.map(copy)}
   }
-  return {tree: copy(tree) as Root, dropped}
+  return {tree: copy(tree), dropped}
 }
 
 describe('remark-upright changes nothing but the passing diagrams', () => {
@@ -125,7 +136,7 @@ describe('remark-upright changes nothing but the passing diagrams', () => {
         const tree = parse()
         const processor = unified().use(remarkParse).use(remarkDirective).use(remarkUpright, {onFailure, output, limits: {maxVertices: 12}})
         const file = {value: markdown, messages: []}
-        const outcome = await processor.run(tree, file as never).then(
+        const outcome = await (processor.run(tree as never, file as never) as unknown as Promise<unknown>).then(
           () => 'ok',
           (error: unknown) => error
         )
