@@ -1,12 +1,12 @@
 /**
  * docs/language.md against the parser: every `upright` example in it parses without an error, every
  * rule example (a `text` block followed by a `> line:column–line:column reason` quote) gives exactly
- * that first message, and every rule id has a section of the same name. Keeps the reference from
+ * that first message (the parser's, or for tier rules found after parsing the check's first error), and every rule id has a section of the same name. Keeps the reference from
  * drifting away from the code.
  */
 import {readFileSync} from 'node:fs'
 import {describe, expect, it} from 'vitest'
-import {parseDiagram, parseRuleIds} from '@upright/core'
+import {checkDiagram, parseDiagram, parseRuleIds, tierRuleIds} from '@upright/core'
 
 const docs = readFileSync(new URL('../../../docs/language.md', import.meta.url), 'utf8')
 
@@ -27,7 +27,8 @@ describe('docs/language.md', () => {
       })
     } else if (quoted !== undefined) {
       it(`rule example gives its documented message: ${JSON.stringify(body!.split('\n')[0])}`, () => {
-        const [first] = parseDiagram(body!).diagnostics
+        // The parser's first message, or for the rules the check reports after parsing (tiers), its first error.
+        const first = parseDiagram(body!).diagnostics[0] ?? checkDiagram(body!).diagnostics.find((d) => d.severity === 'error')
         expect(first).toBeDefined()
         const {start, end} = first!.range
         expect(`${start.line}:${start.column}–${end.line}:${end.column} ${first!.reason}`).toBe(quoted)
@@ -37,6 +38,6 @@ describe('docs/language.md', () => {
 
   it('has a section for every rule id', () => {
     const headings = new Set([...docs.matchAll(/^### (\S+)$/gm)].map((match) => match[1]))
-    for (const ruleId of parseRuleIds) expect(headings.has(ruleId), ruleId).toBe(true)
+    for (const ruleId of [...parseRuleIds, ...tierRuleIds]) expect(headings.has(ruleId), ruleId).toBe(true)
   })
 })
