@@ -1,0 +1,91 @@
+/**
+ * `pnpm bench fallback [--quick] [--limit N]`: the marked fallback drawing (packages/core/src/fallback)
+ * against @dagrejs/dagre (a general-purpose layered layout) on graphs that have no upward planar
+ * drawing, same graphs, same box sizes and gaps, in one run.
+ *
+ * Graphs: the North DAGs (/work/shared/data/north, see SOURCE.md there) that the exact test finds not
+ * upward planar (planar or not), and the Rome graphs (/work/shared/data/rome, see SOURCE.md there)
+ * oriented from the lower to the higher vertex number, those not upward planar. Per graph: edges
+ * removed (inserted afterwards), crossings of our drawing and of dagre's (layoutStats, counted
+ * geometrically on both), and the ratio.
+ */
+import {readdirSync} from 'node:fs'
+import {join} from 'node:path'
+import dagre from '@dagrejs/dagre'
+import {createDigraph, type Digraph} from '../packages/core/src/graph/digraph.ts'
+import {testUpwardPlanarity} from '../packages/core/src/upward/index.ts'
+import {defaultSpacing, layoutStats, type Layout} from '../packages/core/src/layout/index.ts'
+import {layoutFallback} from '../packages/core/src/fallback/index.ts'
+import {readGraphml} from '../packages/core/test/support/graphml.ts'
+import {labelBox} from '../packages/core/src/measure/index.ts'
+
+type Box = {width: number; height: number}
+const args = process.argv.slice(2)
+const quick = args.includes('--quick')
+const limitAt = args.indexOf('--limit')
+const limit = limitAt >= 0 ? Number(args[limitAt + 1]) : quick ? 40 : Infinity
+
+function boxesFor(n: number): Box[] {
+  return Array.from({length: n}, (_, v) => {
+    const b = labelBox(v % 7 === 3 ? `item ${v}\nsecond line` : `item ${v}`)
+    return {width: b.width, height: b.height}
+  })
+}
+
+function dagreLayout(g: Digraph, boxes: Box[]): Layout {
+  const d = new dagre.graphlib.Graph({multigraph: true})
+  d.setGraph({rankdir: 'BT', nodesep: defaultSpacing.node, edgesep: defaultSpacing.edge, ranksep: defaultSpacing.layer, marginx: 0, marginy: 0})
+  d.setDefaultEdgeLabel(() => ({}))
+  for (let v = 0; v < g.vertexCount; v++) d.setNode(String(v), {width: boxes[v]!.width, height: boxes[v]!.height})
+  for (let e = 0; e < g.edgeCount; e++) d.setEdge(String(g.tail[e]), String(g.head[e]), {}, String(e))
+  dagre.layout(d)
+  const nodes = Array.from({length: g.vertexCount}, (_, v) => {
+    const n = d.node(String(v))
+    return {vertex: v, x: n.x, y: n.y, width: boxes[v]!.width, height: boxes[v]!.height}
+  })
+  const edges = Array.from({length: g.edgeCount}, (_, e) => {
+    const pts = d.edge({v: String(g.tail[e]), w: String(g.head[e]), name: String(e)}).points as Array<{x: number; y: number}>
+    return {edge: e, points: pts.map((p): [number, number] => [p.x, p.y])}
+  })
+  const graph = d.graph()
+  return {flow: 'up', width: graph.width ?? 0, height: graph.height ?? 0, nodes, edges}
+}
+
+interface Row {set: string; name: string; n: number; m: number; removed: number; ours: number; dagre: number; ms: number}
+
+function run(set: string, dir: string, orient: (edges: [number, number][]) => [number, number][]): Row[] {
+  const rows: Row[] = []
+  const files = readdirSync(dir).filter((f) => f.endsWith('.graphml')).sort()
+  for (const file of files) {
+    if (rows.length >= limit) break
+    const {vertexCount, edges} = readGraphml(join(dir, file))
+    const g = createDigraph(vertexCount, orient(edges))
+    const verdict = testUpwardPlanarity(g, {maxMillis: 5000})
+    if (verdict.status !== 'not-upward') continue
+    const boxes = boxesFor(vertexCount)
+    const t0 = performance.now()
+    const ours = layoutFallback(g, {flow: 'up', boxes, budget: {maxMillis: 20000}})
+    const ms = performance.now() - t0
+    const theirs = dagreLayout(g, boxes)
+    rows.push({set, name: file, n: vertexCount, m: g.edgeCount, removed: ours.inserted.length, ours: layoutStats(ours.layout).crossings, dagre: layoutStats(theirs).crossings, ms})
+  }
+  return rows
+}
+
+const north = run('north', '/work/shared/data/north', (e) => e)
+const rome = run('rome', '/work/shared/data/rome', (e) => e.map(([a, b]) => (a < b ? [a, b] : [b, a])))
+
+function summary(label: string, rows: Row[]): void {
+  const fewer = rows.filter((r) => r.ours < r.dagre).length
+  const equal = rows.filter((r) => r.ours === r.dagre).length
+  const more = rows.filter((r) => r.ours > r.dagre)
+  const worst = rows.reduce((w, r) => Math.max(w, r.dagre === 0 ? (r.ours === 0 ? 0 : Infinity) : r.ours / r.dagre), 0)
+  const sum = (f: (r: Row) => number): number => rows.reduce((s, r) => s + f(r), 0)
+  console.log(`${label}: ${rows.length} graphs; fewer crossings than dagre on ${fewer} (${((100 * fewer) / Math.max(1, rows.length)).toFixed(1)}%), equal on ${equal}, more on ${more.length}; worst ratio ours/dagre ${worst.toFixed(2)}`)
+  console.log(`  edges removed: total ${sum((r) => r.removed)}, mean ${(sum((r) => r.removed) / Math.max(1, rows.length)).toFixed(2)}; crossings total ours ${sum((r) => r.ours)}, dagre ${sum((r) => r.dagre)}; our time mean ${(sum((r) => r.ms) / Math.max(1, rows.length)).toFixed(1)} ms`)
+  for (const r of more.slice(0, 10)) console.log(`  more: ${r.name} n=${r.n} m=${r.m} removed=${r.removed} ours=${r.ours} dagre=${r.dagre}`)
+}
+if (args.includes('--rows')) for (const r of [...north, ...rome]) console.log(`${r.set} ${r.name} n=${r.n} m=${r.m} removed=${r.removed} ours=${r.ours} dagre=${r.dagre} ${r.ms.toFixed(0)}ms`)
+summary('North DAGs, not upward planar', north)
+summary('Rome graphs by vertex number, not upward planar', rome)
+summary('all', [...north, ...rome])
