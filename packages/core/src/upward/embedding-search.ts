@@ -136,26 +136,15 @@ export function searchUpwardEmbedding(
   }
 
   /** Faces where every attachment has a corner that keeps it bimodal for each attaching direction. */
-  const admissible = (fr: Fragment, faceAt: Int32Array[], faces: number): number[] => {
-    const ok = new Int32Array(faces) // count of attachments satisfied per face
+  const admissible = (fr: Fragment, faceAt: Int32Array[], faces: number, okFaces: (v: number, dirs: number) => number[]): number[] => {
+    let list: number[] | null = null
     for (const [a, dirs] of fr.attach) {
-      const fa = faceAt[a]!
-      if (fa.length === 0) {
-        for (let f = 0; f < faces; f++) ok[f]!++ // a lone vertex (only at the very start)
-        continue
-      }
-      const hasOut = new Uint8Array(faces), hasIn = new Uint8Array(faces)
-      for (let i = 0; i < fa.length; i++) {
-        if (okAt(a, i, true)) hasOut[fa[i]!] = 1
-        if (okAt(a, i, false)) hasIn[fa[i]!] = 1
-      }
-      for (let f = 0; f < faces; f++) {
-        if ((!(dirs & 1) || hasOut[f]) && (!(dirs & 2) || hasIn[f])) ok[f]!++
-      }
+      if (faceAt[a]!.length === 0) continue // a lone vertex (only at the very start): no limit
+      const here = okFaces(a, dirs)
+      list = list === null ? here.slice() : list.filter((f) => here.includes(f))
+      if (list.length === 0) break
     }
-    const list: number[] = []
-    for (let f = 0; f < faces; f++) if (ok[f] === fr.attach.size) list.push(f)
-    return list
+    return list ?? Array.from({length: faces}, (_, f) => f)
   }
 
   /** A path through the fragment: from a placed vertex to a placed vertex, or a pendant edge. */
@@ -220,9 +209,26 @@ export function searchUpwardEmbedding(
     // A placed vertex that is a sink so far but has an unplaced out-edge (or a source so far with
     // an unplaced in-edge) must send that edge through its large angle, the only one of its angles
     // open upward (downward); so its large angle must lie in a face where that fragment can go.
-    const allowedFaces = new Map<number, Uint8Array>()
+    // faces where v can take an edge in each needed direction (1 out, 2 in), per node and vertex
+    const okCache = new Map<number, number[]>()
+    const okFaces = (v: number, dirs: number): number[] => {
+      const key = v * 4 + dirs
+      let list = okCache.get(key)
+      if (list === undefined) {
+        const fa = faceAt[v]!
+        const out: number[] = [], inn: number[] = []
+        for (let i = 0; i < fa.length; i++) {
+          if (okAt(v, i, true) && !out.includes(fa[i]!)) out.push(fa[i]!)
+          if (okAt(v, i, false) && !inn.includes(fa[i]!)) inn.push(fa[i]!)
+        }
+        list = dirs === 1 ? out : dirs === 2 ? inn : out.filter((f) => inn.includes(f))
+        okCache.set(key, list)
+      }
+      return list
+    }
+    const allowedFaces = new Map<number, number[]>()
     for (const fr of fragments()) {
-      const list = admissible(fr, faceAt, faces)
+      const list = admissible(fr, faceAt, faces, okFaces)
       if (list.length === 0 && faces > 0) return false
       if (best === null || list.length < bestFaces.length) {
         best = fr
@@ -234,20 +240,14 @@ export function searchUpwardEmbedding(
         if (r.length === 0) continue
         const outs = r.reduce((c, e) => c + (tail[e] === v ? 1 : 0), 0)
         if (!((outs === 0 && dirs & 1) || (outs === r.length && dirs & 2))) continue
-        let mask = allowedFaces.get(v)
-        if (mask === undefined) {
-          mask = new Uint8Array(faces).fill(1)
-          allowedFaces.set(v, mask)
-        }
-        const here = new Uint8Array(faces)
-        for (const f of list) here[f] = 1
-        for (let f = 0; f < faces; f++) mask[f]! &= here[f]!
+        const before = allowedFaces.get(v)
+        allowedFaces.set(v, before === undefined ? list : before.filter((f) => list.includes(f)))
       }
     }
     if (goal === 'upward' && faces > 0) {
       const allowed = (v: number, i: number) => {
-        const mask = allowedFaces.get(v)
-        return mask === undefined || mask[faceAt[v]![i]!] === 1
+        const list = allowedFaces.get(v)
+        return list === undefined || list.includes(faceAt[v]![i]!)
       }
       if (assignLargeAngles(rot, tail, head, allowed) === null) {
         assignmentPruned = true
