@@ -79,6 +79,6 @@ describe('North DAGs', () => {
         if (!(e instanceof RangeError)) throw e
       }
     }
-    expect(confirmedByOracle).toBeGreaterThanOrEqual(20)
+    expect(confirmedByOracle).toBe(41)
   })
 })
