@@ -21,8 +21,10 @@
  * found here by choosing one truth value per connected component of the equations, with transitivity
  * propagated (a < b and b < c force a < c) and chronological backtracking. Each propagation costs
  * O(level width); the search is exponential only in the worst case, so it is bounded by `maxSteps`
- * and then answers `undecided` (never a wrong answer). Ties are broken towards `rank` (the written
- * order): each component first gets the value that puts its first pair in rank order.
+ * and then answers `undecided` (never a wrong answer). Pairs that no equation mentions are not searched:
+ * once the rest is set, the relation is a strict partial order and any linear extension of it is a
+ * solution. Ties are broken towards `rank` (the written order): each component first gets the value
+ * that puts its first pair in rank order, and the linear extension takes the leftmost-ranked node it can.
  */
 import type {Digraph} from '../graph/digraph.ts'
 
@@ -40,6 +42,11 @@ export interface LevelPlanarityOptions {
   rank?: ArrayLike<number>
   /** Propagation steps the witness search may take before answering `undecided`. */
   maxSteps?: number
+  /**
+   * Most pair variables plus segment pairs (P + Q above) to set up; past it the answer is `undecided`
+   * before anything quadratic is allocated. Default 4,000,000.
+   */
+  maxWork?: number
 }
 
 /** Throws RangeError unless every edge goes from a lower to a strictly higher level ≥ 0. */
@@ -47,6 +54,7 @@ export function testLevelPlanarity(graph: Digraph, level: ArrayLike<number>, opt
   const n = graph.vertexCount
   const rank = options.rank
   const maxSteps = options.maxSteps ?? 5_000_000
+  const maxWork = options.maxWork ?? 4_000_000
   for (let v = 0; v < n; v++) {
     const l = level[v]!
     if (!Number.isInteger(l) || l < 0) throw new RangeError(`level[${v}] must be a whole number ≥ 0, got ${l}`)
@@ -67,10 +75,17 @@ export function testLevelPlanarity(graph: Digraph, level: ArrayLike<number>, opt
   const segEdge: number[] = []
   let maxLevel = 0
   for (let v = 0; v < n; v++) maxLevel = Math.max(maxLevel, level[v]!)
+  let dummies = 0
   for (let e = 0; e < graph.edgeCount; e++) {
     const u = graph.tail[e]!
     const w = graph.head[e]!
     if (level[w]! <= level[u]!) throw new RangeError(`edge ${e} (${u} -> ${w}) does not go up a level`)
+    dummies += level[w]! - level[u]! - 1
+  }
+  if (dummies > maxWork) return {status: 'undecided'}
+  for (let e = 0; e < graph.edgeCount; e++) {
+    const u = graph.tail[e]!
+    const w = graph.head[e]!
     let previous = u
     for (let l = level[u]! + 1; l < level[w]!; l++) {
       const dummy = nodeLevel.length
@@ -87,6 +102,15 @@ export function testLevelPlanarity(graph: Digraph, level: ArrayLike<number>, opt
     segHead.push(w)
     segEdge.push(e)
   }
+
+  // Bound the quadratic part before building it.
+  const perLevel = new Float64Array(maxLevel + 1)
+  const perBand = new Float64Array(maxLevel + 1)
+  for (let node = 0; node < nodeLevel.length; node++) perLevel[nodeLevel[node]!]!++
+  for (const t of segTail) perBand[nodeLevel[t]!]!++
+  let work = 0
+  for (let l = 0; l <= maxLevel; l++) work += (perLevel[l]! * (perLevel[l]! - 1)) / 2 + (perBand[l]! * (perBand[l]! - 1)) / 2
+  if (work > maxWork) return {status: 'undecided'}
 
   // 2. Nodes per level in preference order; a node's position there names its pair variables.
   const levels: number[][] = Array.from({length: maxLevel + 1}, () => [])
@@ -106,11 +130,22 @@ export function testLevelPlanarity(graph: Digraph, level: ArrayLike<number>, opt
     return varBase[l]! + i * k - (i * (i + 1)) / 2 + (j - i - 1)
   }
   /** left(a, b) as a variable and a sign: value(left) = value(var) XOR flip. */
+  /** Level and positions (i < j) of each variable, filled in as variables are first used. */
+  const varLevel = new Int32Array(varCount)
+  const varI = new Int32Array(varCount)
+  const varJ = new Int32Array(varCount)
+  const variable = (l: number, i: number, j: number): number => {
+    const v = pairVar(l, i, j)
+    varLevel[v] = l
+    varI[v] = i
+    varJ[v] = j
+    return v
+  }
   const literal = (a: number, b: number): [number, number] => {
     const l = nodeLevel[a]!
     const i = position[a]!
     const j = position[b]!
-    return i < j ? [pairVar(l, i, j), 0] : [pairVar(l, j, i), 1]
+    return i < j ? [variable(l, i, j), 0] : [variable(l, j, i), 1]
   }
 
   // 3. Equations between segments of the same band, as an adjacency list with parity.
@@ -148,18 +183,18 @@ export function testLevelPlanarity(graph: Digraph, level: ArrayLike<number>, opt
     adj[fill[eqB[q]!]!++] = q
   }
 
-  // 2-colouring by BFS: colour = value relative to the component root, which is set to true.
-  const colour = new Int8Array(varCount).fill(-1)
-  const component = new Int32Array(varCount)
+  // 2-colouring by BFS: colour = value relative to the component root, which is set to true. Only
+  // variables in some equation take part; the others are free (component −1).
+  const colour = new Int8Array(varCount)
+  const component = new Int32Array(varCount).fill(-1)
   const parentEq = new Int32Array(varCount).fill(-1)
   const depth = new Int32Array(varCount)
   const componentRoots: number[] = []
   const queue = new Int32Array(varCount)
   for (let root = 0; root < varCount; root++) {
-    if (colour[root] !== -1) continue
+    if (component[root] !== -1 || adjStart[root] === adjStart[root + 1]) continue
     const c = componentRoots.length
     componentRoots.push(root)
-    colour[root] = 0
     component[root] = c
     let head = 0
     let tail = 0
@@ -170,7 +205,7 @@ export function testLevelPlanarity(graph: Digraph, level: ArrayLike<number>, opt
         const q = adj[p]!
         const y = eqA[q] === x ? eqB[q]! : eqA[q]!
         const want = colour[x]! ^ eqParity[q]!
-        if (colour[y] === -1) {
+        if (component[y] === -1) {
           colour[y] = want
           component[y] = c
           parentEq[y] = q
@@ -207,95 +242,114 @@ export function testLevelPlanarity(graph: Digraph, level: ArrayLike<number>, opt
     return [...edges].sort((p, q) => p - q)
   }
 
-  // The witness: one value per component, transitivity propagated, backtracking on conflict.
-  const members: number[][] = componentRoots.map(() => [])
-  for (let v = 0; v < varCount; v++) members[component[v]!]!.push(v)
+  // The witness: one value per component, transitivity propagated, backtracking on conflict. A free
+  // variable forced by propagation is set on its own (named −1 − variable on the trail).
+  const componentCount = componentRoots.length
+  const memberStart = new Int32Array(componentCount + 1)
+  for (let v = 0; v < varCount; v++) if (component[v]! >= 0) memberStart[component[v]! + 1]!++
+  for (let c = 0; c < componentCount; c++) memberStart[c + 1]! += memberStart[c]!
+  const memberList = new Int32Array(memberStart[componentCount]!)
+  const memberFill = memberStart.slice(0, componentCount)
+  for (let v = 0; v < varCount; v++) if (component[v]! >= 0) memberList[memberFill[component[v]!]!++] = v
   /** Per level, k×k: +1 when the node at position i is left of the one at j, −1 right, 0 unknown. */
   const relation = levels.map((nodes) => new Int8Array(nodes.length * nodes.length))
-  /** Level and positions of every variable, for propagation. */
-  const varLevel = new Int32Array(varCount)
-  const varI = new Int32Array(varCount)
-  const varJ = new Int32Array(varCount)
-  levels.forEach((nodes, l) => {
-    for (let i = 0; i < nodes.length; i++) {
-      for (let j = i + 1; j < nodes.length; j++) {
-        const v = pairVar(l, i, j)
-        varLevel[v] = l
-        varI[v] = i
-        varJ[v] = j
-      }
-    }
-  })
-  const assigned = new Int8Array(componentRoots.length).fill(-1)
+  const assigned = new Int8Array(componentCount).fill(-1)
   const trail: number[] = []
   let steps = 0
 
-  /** Give component c the flip `f` (its variables get colour XOR f) and propagate; false on conflict. */
+  /** Set variable v to `value` (0: position varI left of varJ) and propagate; false on conflict. */
+  function setVariable(v: number, value: number, pending: number[]): boolean {
+    const [left, right] = value === 0 ? [varI[v]!, varJ[v]!] : [varJ[v]!, varI[v]!]
+    const l = varLevel[v]!
+    const k = levels[l]!.length
+    const rel = relation[l]!
+    rel[left * k + right] = 1
+    rel[right * k + left] = -1
+    for (let w = 0; w < k; w++) {
+      if (++steps > maxSteps) return false
+      if (w === left || w === right) continue
+      // left < right and right < w force left < w; w < left forces w < right.
+      if (rel[right * k + w] === 1 && !force(l, left, w, pending)) return false
+      if (rel[w * k + left] === 1 && !force(l, w, right, pending)) return false
+    }
+    return true
+  }
+
+  /**
+   * Give component c the flip `f` (its variables get colour XOR f) and propagate; false on conflict.
+   * Pending entries are pairs (c, f) for a component, or (−1 − v, value) for a free variable.
+   */
   function assign(c: number, f: number): boolean {
     const pending: number[] = [c, f]
     while (pending.length > 0) {
       const flip = pending.pop()!
-      const comp = pending.pop()!
-      if (assigned[comp] !== -1) {
-        if (assigned[comp] !== flip) return false
+      const id = pending.pop()!
+      if (id < 0) {
+        const v = -1 - id
+        const k = levels[varLevel[v]!]!.length
+        const known = relation[varLevel[v]!]![varI[v]! * k + varJ[v]!]!
+        if (known !== 0) {
+          if (known !== (flip === 0 ? 1 : -1)) return false
+          continue
+        }
+        trail.push(id)
+        if (!setVariable(v, flip, pending)) return false
         continue
       }
-      assigned[comp] = flip
-      trail.push(comp)
-      for (const v of members[comp]!) {
-        const value = colour[v]! ^ flip
-        // value 0: i left of j (the root's value is "true", colour 0).
-        const [left, right] = value === 0 ? [varI[v]!, varJ[v]!] : [varJ[v]!, varI[v]!]
-        const l = varLevel[v]!
-        const k = levels[l]!.length
-        const rel = relation[l]!
-        rel[left * k + right] = 1
-        rel[right * k + left] = -1
-        for (let w = 0; w < k; w++) {
-          if (++steps > maxSteps) return false
-          if (w === left || w === right) continue
-          // left < right and right < w force left < w; w < left forces w < right.
-          if (rel[right * k + w] === 1 && !force(l, left, w, pending)) return false
-          if (rel[w * k + left] === 1 && !force(l, w, right, pending)) return false
-        }
+      if (assigned[id] !== -1) {
+        if (assigned[id] !== flip) return false
+        continue
+      }
+      assigned[id] = flip
+      trail.push(id)
+      for (let p = memberStart[id]!; p < memberStart[id + 1]!; p++) {
+        const v = memberList[p]!
+        if (!setVariable(v, colour[v]! ^ flip, pending)) return false
       }
     }
     return true
   }
 
-  /** Require position a left of position b on level l: conflict, nothing to do, or a pending flip. */
+  /** Require position a left of position b on level l: conflict, nothing to do, or a pending entry. */
   function force(l: number, a: number, b: number, pending: number[]): boolean {
     const k = levels[l]!.length
     const known = relation[l]![a * k + b]!
     if (known === 1) return true
     if (known === -1) return false
-    const v = a < b ? pairVar(l, a, b) : pairVar(l, b, a)
+    const v = a < b ? variable(l, a, b) : variable(l, b, a)
     // Wanted value of v: 0 when the smaller position is on the left.
     const value = a < b ? 0 : 1
-    pending.push(component[v]!, colour[v]! ^ value)
+    if (component[v]! < 0) pending.push(-1 - v, value)
+    else pending.push(component[v]!, colour[v]! ^ value)
     return true
+  }
+
+  function clearVariable(v: number): void {
+    const k = levels[varLevel[v]!]!.length
+    relation[varLevel[v]!]![varI[v]! * k + varJ[v]!] = 0
+    relation[varLevel[v]!]![varJ[v]! * k + varI[v]!] = 0
   }
 
   function undoTo(mark: number): void {
     while (trail.length > mark) {
-      const comp = trail.pop()!
-      for (const v of members[comp]!) {
-        const k = levels[varLevel[v]!]!.length
-        relation[varLevel[v]!]![varI[v]! * k + varJ[v]!] = 0
-        relation[varLevel[v]!]![varJ[v]! * k + varI[v]!] = 0
+      const id = trail.pop()!
+      if (id < 0) {
+        clearVariable(-1 - id)
+        continue
       }
-      assigned[comp] = -1
+      for (let p = memberStart[id]!; p < memberStart[id + 1]!; p++) clearVariable(memberList[p]!)
+      assigned[id] = -1
     }
   }
 
-  // Iterative depth-first search over components in order; the preferred flip (0: the root pair in
-  // rank order) first.
+  // Iterative depth-first search over the components in order; the preferred flip (0: the root pair
+  // in rank order) first.
   const choice: number[] = []
   const marks: number[] = []
   let next = 0
   for (;;) {
-    while (next < componentRoots.length && assigned[next] !== -1) next++
-    if (next === componentRoots.length) break
+    while (next < componentCount && assigned[next] !== -1) next++
+    if (next === componentCount) break
     marks.push(trail.length)
     choice.push(next)
     if (assign(next, 0)) continue
@@ -324,16 +378,23 @@ export function testLevelPlanarity(graph: Digraph, level: ArrayLike<number>, opt
     next = -1 - choice.at(-1)!
   }
 
+  // The relation set so far is a strict partial order (closed under the propagation); the pairs no
+  // equation mentions are free, so any linear extension completes it. Take the one nearest to rank
+  // order: always the leftmost-ranked node with nothing unplaced to its left (Kahn, O(k²) a level).
   const orders = levels.map((nodes, l) => {
     const k = nodes.length
     const rel = relation[l]!
-    const leftOf = (i: number): number => {
-      let count = 0
-      for (let j = 0; j < k; j++) if (rel[j * k + i] === 1) count++
-      return count
+    const before = new Int32Array(k)
+    for (let i = 0; i < k; i++) for (let j = 0; j < k; j++) if (rel[j * k + i] === 1) before[i]!++
+    const done = new Uint8Array(k)
+    const placed: LevelItem[] = []
+    while (placed.length < k) {
+      let pick = 0
+      while (done[pick] || before[pick] !== 0) pick++
+      done[pick] = 1
+      placed.push(nodeItem[nodes[pick]!]!)
+      for (let j = 0; j < k; j++) if (rel[pick * k + j] === 1) before[j]!--
     }
-    const placed: LevelItem[] = new Array(k)
-    for (let i = 0; i < k; i++) placed[leftOf(i)] = nodeItem[nodes[i]!]!
     return placed
   })
   return {status: 'planar', orders}
