@@ -53,7 +53,9 @@ describe('upright check', () => {
               reason: expect.stringContaining('`build -> test -> ship -> build`')
             }
           ],
-          certificate: {kind: 'cycle', vertices: ['build', 'test', 'ship']}
+          certificate: {kind: 'cycle', vertices: ['build', 'test', 'ship']},
+          // One edge breaks the only cycle; the exact feedback arc set says it is the fewest.
+          fix: {remove: [['build', 'test']], exact: true}
         }
       ],
       summary: {diagrams: 1, passed: 0, failed: 1}
@@ -71,7 +73,9 @@ describe('upright check', () => {
       branch: ['a', 'b', 'c', 'x', 'y', 'z'],
       edges: ['a', 'b', 'c'].flatMap((u) => ['x', 'y', 'z'].map((v) => [u, v]))
     })
-    expect(diagram!.messages[0]!.reason).toBe('These 9 edges form a subdivided K3,3, so no drawing of them avoids a crossing.')
+    expect(diagram!.messages[0]!.reason).toBe('These 9 edges form a subdivided K3,3, so no drawing of them avoids a crossing. Suggested fix: dropping this edge lets the diagram be drawn without crossings if arrows could point any way: `c -> z`.')
+    // K3,3 minus any edge is planar, so one edge is the fewest (Kuratowski 1930).
+    expect(diagram!.fix).toEqual({remove: [['c', 'z']], exact: true})
   })
 
   it('passes an upward planar diagram with exit 0', async () => {

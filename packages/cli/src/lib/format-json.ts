@@ -19,6 +19,8 @@ export interface JsonDiagram {
   status: string
   messages: JsonMessage[]
   certificate: unknown
+  /** For a cycle, nonplanar or not-upward failure: the edges whose removal the message suggests. */
+  fix?: {remove: Array<[string, string]>; exact: boolean}
 }
 
 export interface JsonReport {
@@ -33,6 +35,8 @@ export function toJsonReport(reports: readonly FileReport[]): JsonReport {
   for (const report of reports) {
     if (report.error) errors.push({file: report.display, reason: report.error})
     for (const result of report.results) {
+      const {fix, ...certificate} = (result.certificate ?? result.check?.certificate ?? {}) as {fix?: JsonDiagram['fix']}
+      const found = result.certificate ?? result.check?.certificate
       diagrams.push({
         file: report.display,
         line: result.block.start.line,
@@ -47,7 +51,8 @@ export function toJsonReport(reports: readonly FileReport[]): JsonReport {
           ruleId: m.ruleId,
           reason: m.reason
         })),
-        certificate: result.certificate ?? result.check?.certificate ?? null
+        certificate: found ? certificate : null,
+        ...(fix ? {fix} : {})
       })
     }
   }

@@ -57,7 +57,7 @@ export function summarize(reports: readonly FileReport[]) {
   return {files: reports.length, diagrams, passed, failed: diagrams - passed, unreadable}
 }
 
-function codeFrame(lines: string[], m: BlockMessage, paint: (c: keyof typeof ansi, s: string) => string): string[] {
+export function codeFrame(lines: string[], m: Pick<BlockMessage, "place">, paint: (c: keyof typeof ansi, s: string) => string): string[] {
   const {start, end} = m.place
   const text = lines[start.line - 1]
   if (text === undefined) return []

@@ -54,6 +54,19 @@ export async function run(argv: readonly string[], io: Io): Promise<number> {
       exit = await check(paths, opts, io)
     })
 
+  program
+    .command('explain')
+    .description('print the whole diagnosis of every diagram in a file: each problem with code frames for every edge involved, and a suggested fix')
+    .argument('<file>', 'a Markdown (.md) or diagram (.upright) file')
+    .addOption(new Option('--format <format>', 'report format (json: as check\'s, with "fix" per failing diagram)').choices(['text', 'json']).default('text'))
+    .addOption(new Option('--flow <flow>', 'default flow (for .upright files: their flow)').choices(flows))
+    .option('--title <title>', 'title (for .upright files)')
+    .option('--budget <ms>', 'milliseconds the upward test may spend per diagram', parseBudget)
+    .option('--limits <json>', limitsHelp, parseLimits)
+    .action(async (file: string, opts: Omit<CheckOpts, 'jobs' | 'shard' | 'cacheDir' | 'cache'>) => {
+      exit = await explain(file, opts, io)
+    })
+
   for (const name of ['layout', 'render'] as const) {
     const command = program
       .command(name)
@@ -172,6 +185,17 @@ function parseBudget(value: string): number {
 /** Where relative paths start: where the user typed the command, also under `pnpm upright`. */
 export function baseDirectory(io: Io): string {
   return io.env['npm_lifecycle_event'] === 'upright' && io.env['INIT_CWD'] ? io.env['INIT_CWD'] : io.cwd
+}
+
+async function explain(file: string, opts: Omit<CheckOpts, 'jobs' | 'shard' | 'cacheDir' | 'cache'>, io: Io): Promise<number> {
+  const base = baseDirectory(io)
+  const {checkFile} = await import('./check-files.ts')
+  const {formatExplain} = await import('./explain-text.ts')
+  const report = await checkFile(path.resolve(base, file), {base, flow: opts.flow, title: opts.title, budget: opts.budget, limits: opts.limits})
+  if (opts.format === 'json') io.stdout.write(JSON.stringify(toJsonReport([report]), null, 2) + '\n')
+  else io.stdout.write(formatExplain([report], {colour: Boolean(io.stdout.isTTY) && io.env['NO_COLOR'] === undefined}))
+  if (report.error) return exitCodes.usage
+  return summarize([report]).failed > 0 ? exitCodes.failed : exitCodes.ok
 }
 
 interface CheckOpts {

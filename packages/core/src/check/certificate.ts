@@ -4,7 +4,18 @@
  */
 export type UserEdge = [string, string]
 
-export type Certificate =
+/**
+ * With a cycle, nonplanar or not-upward failure: the edges whose removal the message suggests
+ * (explain/suggest-fix.ts), and whether no smaller set does it.
+ */
+export interface CertificateFix {
+  remove: UserEdge[]
+  exact: boolean
+}
+
+export type Certificate = CertificateKind & {fix?: CertificateFix}
+
+export type CertificateKind =
   | {kind: 'cycle'; vertices: string[]}
   | {kind: 'kuratowski'; type: 'K5' | 'K3,3'; branch: string[]; edges: UserEdge[]}
   | {kind: 'obstruction'; edges: UserEdge[]}

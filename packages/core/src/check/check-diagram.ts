@@ -12,6 +12,7 @@ import {testPlanarity} from '../planarity/index.ts'
 import {findMinimalObstruction, testUpwardPlanarity, type UpwardEmbedding} from '../upward/index.ts'
 import {cycleFailure, kuratowskiFailure, levelCrossingFailure, obstructionFailure, tierPathFailure, undecidedDiagnostic} from './failures.ts'
 import {assignLevels, joinLabelledEdges, originalEdge, splitLabelledEdges, testLevelPlanarity, type EdgeLabelGraph, type LevelItem} from '../level/index.ts'
+import {attachFix, type Fix} from '../explain/attach-fix.ts'
 import {checkParsedLimits, checkTextLimits, resolveLimits, tooManyEdges, type Limits} from './limits.ts'
 
 export interface CheckSettings {
@@ -50,6 +51,11 @@ export interface DiagramCheck {
    * upward and crossing-free.
    */
   levels?: DiagramLevels
+  /**
+   * For status `cycle`, `nonplanar` and `not-upward` (without tiers): the edges the message suggests
+   * removing (parsed edge ids), see explain/suggest-fix.ts.
+   */
+  fix?: Fix
 }
 
 export interface DiagramLevels {
@@ -59,6 +65,10 @@ export interface DiagramLevels {
 }
 
 export function checkDiagram(text: string, settings: Readonly<CheckSettings> = {}): DiagramCheck {
+  return attachFix(checkStages(text, settings), settings)
+}
+
+function checkStages(text: string, settings: Readonly<CheckSettings>): DiagramCheck {
   const now = settings.now ?? (() => performance.now())
   const budgetMillis = settings.budgetMillis ?? defaultBudgetMillis
   const deadline = now() + budgetMillis

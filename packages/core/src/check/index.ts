@@ -1,4 +1,4 @@
-export type {Certificate, DiagramStatus, UserEdge} from './certificate.ts'
+export type {Certificate, CertificateFix, DiagramStatus, UserEdge} from './certificate.ts'
 export type {CheckSettings, DiagramCheck} from './check-diagram.ts'
 export {checkDiagram, defaultBudgetMillis} from './check-diagram.ts'
 export type {Limits, ResolvedLimits} from './limits.ts'

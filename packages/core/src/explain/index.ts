@@ -5,4 +5,5 @@
 export {feedbackArcSet, stronglyConnectedComponents, exactVertexLimit, type FeedbackArcSet} from './feedback-arc-set.ts'
 export {planarizingSet, type PlanarizingSet} from './planarizing-set.ts'
 export {maximalUpwardSubgraph, type UpwardSubgraph} from './upward-subgraph.ts'
+export {attachFix} from './attach-fix.ts'
 export {suggestFix, userFix, fixSentence, fixNote, withFixMessage, withoutEdges, type Fix, type UserFix} from './suggest-fix.ts'
