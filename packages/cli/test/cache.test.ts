@@ -31,7 +31,8 @@ describe('upright check with a cache folder', () => {
     const dir = temp('cache')
     const fresh = await cli(['check', '--no-cache', '--format', 'json', '.'], docs)
     const cold = await cli(['check', '--cache-dir', dir, '--format', 'json', '.'], docs)
-    expect(entries(dir)).toHaveLength(tree.diagrams)
+    // One entry per diagram, and one per Markdown file (its whole report).
+    expect(entries(dir)).toHaveLength(tree.diagrams + tree.files.length)
     const warm = await cli(['check', '--cache-dir', dir, '--format', 'json', '.'], docs)
     expect(cold).toEqual(fresh)
     expect(warm).toEqual(fresh)
@@ -47,13 +48,15 @@ describe('upright check with a cache folder', () => {
     const files = entries(dir)
     files.forEach((file, i) => {
       const text = readFileSync(file, 'utf8')
-      // Alternate damages: cut short, or a flipped status inside an otherwise whole entry.
-      writeFileSync(file, i % 2 ? text.slice(0, text.length - 5) : text.replace(/"status":"[a-z-]+"/, '"status":"upward"').replace(/"status":"upward"/, '"status":"cycle"'))
+      // Alternate damages: cut short, or a status changed inside an otherwise whole entry.
+      const flipped = text.replace(/"status":"([a-z-]+)"/, (_, s: string) => `"status":"${s === 'cycle' ? 'upward' : 'cycle'}"`)
+      expect(flipped).not.toBe(text)
+      writeFileSync(file, i % 2 ? text.slice(0, text.length - 5) : flipped)
     })
     const again = await cli(['check', '--cache-dir', dir, '--format', 'json', '.'], docs)
     expect(again).toEqual(fresh)
     for (const file of entries(dir)) expect(readFileSync(file, 'utf8')).not.toBe('')
-    expect(entries(dir)).toHaveLength(tree.diagrams)
+    expect(entries(dir)).toHaveLength(tree.diagrams + tree.files.length)
   })
 
   it('writes nothing with --no-cache', async () => {
@@ -68,7 +71,7 @@ describe('upright check with a cache folder', () => {
     const pages = path.join(project, 'docs')
     writeDocsTree(pages, {files: 3, diagrams: 4, seed: 5, maxVertices: 12, failing: 0})
     expect((await cli(['check', '.'], pages)).code).toBe(0)
-    expect(entries(path.join(project, 'node_modules', '.cache', 'upright'))).toHaveLength(4)
+    expect(entries(path.join(project, 'node_modules', '.cache', 'upright'))).toHaveLength(4 + 3)
     // No package.json above: nothing is written anywhere in the tree (tmpdir has none above it).
     const loose = temp('loose')
     writeDocsTree(loose, {files: 2, diagrams: 2, seed: 6, maxVertices: 12, failing: 0})

@@ -8,6 +8,8 @@ import {defaultBudgetMillis, type DiagramOptions, type Flow, type Limits, type P
 import {checkTree, parseMarkdown, type BlockMessage, type BlockResult, type DiagramBlock, type OutcomeCache} from 'remark-upright/check'
 import {checkBlockBody} from './check-bare.ts'
 import {describeFsError} from './collect-files.ts'
+import {fileKey, type FileCache} from './file-cache.ts'
+import {fromPortableResult, toPortableResult} from './portable-report.ts'
 
 export interface FileReport {
   file: string
@@ -28,6 +30,8 @@ export interface CheckFilesOptions {
   limits?: Readonly<Partial<Limits>> | undefined
   /** Where Markdown diagrams' results are looked up and stored (see remark-upright's `openOutcomeCache`). */
   cache?: OutcomeCache | undefined
+  /** Whole-file results of Markdown files (file-cache.ts); used with `cache`. */
+  fileCache?: FileCache | undefined
 }
 
 export async function checkFile(file: string, options: CheckFilesOptions): Promise<FileReport> {
@@ -50,7 +54,14 @@ export async function checkFile(file: string, options: CheckFilesOptions): Promi
     if (options.title !== undefined) layer.title = options.title
     return {file, display, text, results: [checkBlockBody(text, layer, budget, options.limits)]}
   }
-  return {file, display, text, results: checkTree(parseMarkdown(text), text, {flow: options.flow, budget, limits: options.limits, cache: options.cache})}
+  const settings = {flow: options.flow, budget, limits: options.limits, cache: options.cache}
+  const key = options.fileCache ? fileKey(options.fileCache, text, settings) : undefined
+  const held = key === undefined ? undefined : options.fileCache!.get(key)
+  if (held) return {file, display, text, results: held.map(fromPortableResult)}
+  const results = checkTree(parseMarkdown(text), text, settings)
+  // A file with an undecided diagram is checked again next time, as that diagram is.
+  if (key !== undefined && results.every((r) => r.status !== 'undecided')) options.fileCache!.set(key, results.map(toPortableResult))
+  return {file, display, text, results}
 }
 
 function decodeUtf8(bytes: Uint8Array): string | undefined {

@@ -12,6 +12,7 @@ import {threadId} from 'node:worker_threads'
 import {Tinypool} from 'tinypool'
 import {openOutcomeCache} from 'remark-upright/check'
 import {checkFile, type CheckFilesOptions, type FileReport} from './check-files.ts'
+import {openFileCache} from './file-cache.ts'
 import type {CheckTask} from './check-worker.ts'
 import {fromPortable, type PortableReport} from './portable-report.ts'
 
@@ -24,15 +25,16 @@ export interface PoolOptions {
   onProgress?: ((done: number, thread: number) => void) | undefined
 }
 
-export async function checkFiles(files: readonly string[], options: Omit<CheckFilesOptions, 'cache'>, pool: PoolOptions): Promise<FileReport[]> {
+export async function checkFiles(files: readonly string[], options: Omit<CheckFilesOptions, 'cache' | 'fileCache'>, pool: PoolOptions): Promise<FileReport[]> {
   const jobs = Math.max(1, Math.min(pool.jobs, files.length))
   let done = 0
   const progress = (thread: number) => pool.onProgress?.(++done, thread)
   if (jobs === 1) {
     const cache = openOutcomeCache(pool.cache, options.base)
+    const fileCache = openFileCache(pool.cache, options.base)
     const reports: FileReport[] = []
     for (const file of files) {
-      reports.push(await checkFile(file, {...options, cache}))
+      reports.push(await checkFile(file, {...options, cache, fileCache}))
       progress(threadId)
     }
     return reports
@@ -42,15 +44,21 @@ export async function checkFiles(files: readonly string[], options: Omit<CheckFi
     minThreads: jobs,
     maxThreads: jobs
   })
+  // Runs of a few files per message: enough tasks to balance the threads, few enough to keep the
+  // messaging (a structured clone each way) a small part of the work.
+  const size = Math.max(1, Math.min(16, Math.floor(files.length / (jobs * 16))))
+  const runs: string[][] = []
+  for (let i = 0; i < files.length; i += size) runs.push(files.slice(i, i + size))
   try {
-    return await Promise.all(
-      files.map(async (file) => {
-        const task: CheckTask = {file, options, cache: pool.cache}
-        const portable = (await workers.run(task)) as PortableReport
-        progress(portable.thread)
-        return fromPortable(portable)
+    const done = await Promise.all(
+      runs.map(async (run) => {
+        const task: CheckTask = {files: run, options, cache: pool.cache}
+        const portable = (await workers.run(task)) as PortableReport[]
+        for (const report of portable) progress(report.thread)
+        return portable.map(fromPortable)
       })
     )
+    return done.flat()
   } finally {
     await workers.destroy()
   }

@@ -5,16 +5,21 @@
  */
 import {openOutcomeCache} from 'remark-upright/check'
 import {checkFile, type CheckFilesOptions} from './check-files.ts'
+import {openFileCache} from './file-cache.ts'
 import {toPortable, type PortableReport} from './portable-report.ts'
 
 export interface CheckTask {
-  file: string
-  options: Omit<CheckFilesOptions, 'cache'>
+  /** A run of consecutive files (several per message, to keep messaging cheap). */
+  files: string[]
+  options: Omit<CheckFilesOptions, 'cache' | 'fileCache'>
   /** The cache setting, resolved by the main thread: a folder, memory only, or none. */
   cache: {dir: string} | boolean
 }
 
-export default async function checkTask(task: CheckTask): Promise<PortableReport> {
+export default async function checkTask(task: CheckTask): Promise<PortableReport[]> {
   const cache = openOutcomeCache(task.cache, task.options.base)
-  return toPortable(await checkFile(task.file, {...task.options, cache}))
+  const fileCache = openFileCache(task.cache, task.options.base)
+  const reports: PortableReport[] = []
+  for (const file of task.files) reports.push(toPortable(await checkFile(file, {...task.options, cache, fileCache})))
+  return reports
 }

@@ -31,16 +31,20 @@ export function toPortable(report: FileReport): PortableReport {
     file: report.file,
     display: report.display,
     text: report.text,
-    results: report.results.map((r) => ({
-      block: {form: r.block.form, body: r.block.body, start: r.block.start, end: r.block.end},
-      options: r.options,
-      status: r.status,
-      messages: r.messages,
-      certificate: r.certificate ?? r.check?.certificate
-    }))
+    results: report.results.map(toPortableResult)
   }
   if (report.error !== undefined) out.error = report.error
   return out
+}
+
+export function toPortableResult(r: BlockResult): PortableResult {
+  return {
+    block: {form: r.block.form, body: r.block.body, start: r.block.start, end: r.block.end},
+    options: r.options,
+    status: r.status,
+    messages: r.messages,
+    certificate: r.certificate ?? r.check?.certificate
+  }
 }
 
 export function fromPortable(report: PortableReport): FileReport {
@@ -48,23 +52,27 @@ export function fromPortable(report: PortableReport): FileReport {
     file: report.file,
     display: report.display,
     text: report.text,
-    results: report.results.map((r) => ({
-      block: {
-        ...r.block,
-        parent: {type: 'root', children: []},
-        nodes: [],
-        meta: undefined,
-        toFile: () => {
-          throw new Error('this block was checked in another thread; its messages are already in file positions')
-        }
-      },
-      options: r.options,
-      check: undefined,
-      status: r.status,
-      messages: r.messages,
-      certificate: r.certificate
-    }))
+    results: report.results.map(fromPortableResult)
   }
   if (report.error !== undefined) out.error = report.error
   return out
+}
+
+export function fromPortableResult(r: PortableResult): BlockResult {
+  return {
+    block: {
+      ...r.block,
+      parent: {type: 'root', children: []},
+      nodes: [],
+      meta: undefined,
+      toFile: () => {
+        throw new Error('this block was checked elsewhere (another thread, or an earlier run); its messages are already in file positions')
+      }
+    },
+    options: r.options,
+    check: undefined,
+    status: r.status,
+    messages: r.messages,
+    certificate: r.certificate
+  }
 }
