@@ -19,7 +19,9 @@ import {buildHostilePage, corpus} from './hostile-pages.ts'
 /** Every element a built page may hold: the page shell, Markdown's output, and our SVG. */
 const allowedElements = new Set([
   'html', 'head', 'meta', 'title', 'body', 'h1', 'p', 'pre', 'code', 'figure', 'figcaption',
-  'svg', 'desc', 'style', 'rect', 'path', 'g', 'text', 'tspan'
+  'svg', 'desc', 'style', 'rect', 'path', 'g', 'text', 'tspan',
+  // Vertex links, once drawings carry them: every href is checked below.
+  'a'
 ])
 
 interface DomFacts {
@@ -88,7 +90,19 @@ async function inspect(html: string, name: string): Promise<Observed> {
         if (/^on/i.test(attribute.name)) onAttributes.push(`${element.localName} ${attribute.name}`)
         // Control characters and spaces are ignored by URL parsers, so strip them before looking.
         const squeezed = attribute.value.replace(/[\u0000-\u0020\u007f-\u009f]/g, '')
-        if (/(?:java|vb)script:|data:/i.test(squeezed)) badUrls.push(`${element.localName} ${attribute.name}=${attribute.value}`)
+        if (/^(?:(?:java|vb|live)script|data):/i.test(squeezed)) badUrls.push(`${element.localName} ${attribute.name}=${attribute.value}`)
+        // Anything used as a URL must resolve to a web page or, relative to this file, a file.
+        if (/^(?:href|xlink:href|src|action|formaction|data|poster)$/i.test(attribute.name)) {
+          let protocol = 'unparsable'
+          try {
+            protocol = new URL(attribute.value, document.baseURI).protocol
+          } catch {
+            // keep 'unparsable'
+          }
+          const relative = !/^[a-z][a-z0-9+.-]*:/i.test(squeezed) && !squeezed.startsWith('//') && !squeezed.includes('\\')
+          const ok = protocol === 'http:' || protocol === 'https:' || (protocol === 'file:' && relative)
+          if (!ok) badUrls.push(`${element.localName} ${attribute.name}=${attribute.value} (${protocol})`)
+        }
       }
     }
     return {
@@ -110,15 +124,15 @@ describe('the inspection', () => {
     const seen = await inspect(
       '<!doctype html><html><head><meta charset="utf-8"><title>control</title></head><body>' +
         '<img src="x.png" onerror="alert(1)"><script>fetch("http://xss.example/")</script>' +
-        '<a href="javascript:void 0">x</a></body></html>',
+        '<a href="javascript:void 0">x</a><a href="//xss.example/">y</a><a href="ok.html#z">z</a></body></html>',
       'control'
     )
     expect(seen.dialogs).toEqual(['alert: 1'])
     expect(seen.requests).toEqual(['http://xss.example/'])
     expect(seen.scripts).toBe(1)
     expect(seen.onAttributes).toEqual(['img onerror'])
-    expect(seen.badUrls).toEqual(['a href=javascript:void 0'])
-    expect(seen.elements.filter((name) => !allowedElements.has(name)).sort()).toEqual(['a', 'img', 'script'])
+    expect(seen.badUrls).toEqual(['a href=javascript:void 0', 'a href=javascript:void 0 (javascript:)', 'a href=//xss.example/ (file:)'])
+    expect(seen.elements.filter((name) => !allowedElements.has(name)).sort()).toEqual(['img', 'script'])
   })
 })
 
@@ -126,9 +140,16 @@ for (const output of ['hast', 'html'] as const) {
   it(`the hostile corpus with drawings as ${output} is built and inert in Chromium`, async () => {
     const built = await buildHostilePage(output)
     expect(corpus.vectors.length).toBeGreaterThanOrEqual(90)
-    // Every vector diagram is drawn (plus the diagram of ids); the cycle stays in the page as code.
-    expect(built.drawn).toBe(corpus.vectors.length + 1)
-    expect(built.messages).toEqual([expect.stringMatching(/ cycle$/)])
+    // Every vector diagram is drawn (plus the diagram of ids); the cycle stays in the page as code, and
+    // so does every diagram whose link is refused. Links with a script or data scheme (after removing
+    // what URL parsers ignore) must be among the refused.
+    const refused = built.messages.filter((m) => m.endsWith(' unsafe-link')).length
+    expect(built.messages.filter((m) => !m.endsWith(' unsafe-link'))).toEqual([expect.stringMatching(/ cycle$/)])
+    const scripted = corpus.links.filter((l) => /^(?:(?:java|vb|live)script|data):/i.test(l.replace(/[\u0000-\u0020\u007f-\u009f]/g, '')))
+    expect(scripted.length).toBeGreaterThanOrEqual(8)
+    expect(refused).toBeGreaterThanOrEqual(scripted.length)
+    const linksDrawn = corpus.links.length - refused
+    expect(built.drawn).toBe(corpus.vectors.length + 1 + linksDrawn)
 
     const seen = await inspect(built.html, `hostile-${output}`)
     expect(seen.dialogs).toEqual([])
@@ -138,7 +159,7 @@ for (const output of ['hast', 'html'] as const) {
     expect(seen.onAttributes).toEqual([])
     expect(seen.badUrls).toEqual([])
     expect(seen.elements.filter((name) => !allowedElements.has(name))).toEqual([])
-    expect(seen.svgs).toBe(corpus.vectors.length + 1)
+    expect(seen.svgs).toBe(built.drawn)
     // Each vector arrives as text: as the title of its drawing and as its caption. (Vectors with a
     // NUL are left out of the comparison: HTML parsers drop or replace that character.)
     const titles = seen.titles.map(collapse)

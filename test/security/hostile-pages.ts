@@ -16,6 +16,7 @@ export interface HostileCorpus {
   source: string
   vectors: string[]
   ids: string[]
+  links: string[]
 }
 
 export const corpus: HostileCorpus = JSON.parse(
@@ -39,6 +40,9 @@ export function hostileMarkdown(): string {
     const id = corpus.ids[i % corpus.ids.length]!
     parts.push(`:::upright{title=${attributeOf(vector)}}\n${id} ${labelOf(vector)} -> target_${i} ${labelOf(vector)}\n:::\n`)
   })
+  corpus.links.forEach((link, i) => {
+    parts.push('```upright\n' + `linked_${i} ${labelOf(link)} <${link}> -> next_${i}` + '\n```\n')
+  })
   parts.push('```upright title="ids"\n' + corpus.ids.join(' -> ') + '\n```\n')
   parts.push('```upright\nloop ' + labelOf(corpus.vectors[1]!) + ' -> back ' + labelOf(corpus.vectors[3]!) + ' -> loop\n```\n')
   return parts.join('\n')
@@ -50,6 +54,7 @@ const limits = {maxLabelLength: 1000}
 export interface BuiltHostilePage {
   html: string
   drawn: number
+  /** `line:column ruleId` of every message. */
   messages: string[]
 }
 
