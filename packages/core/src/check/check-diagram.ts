@@ -11,6 +11,7 @@ import type {Certificate, DiagramStatus} from './certificate.ts'
 import {testPlanarity} from '../planarity/index.ts'
 import {findMinimalObstruction, testUpwardPlanarity, type UpwardEmbedding} from '../upward/index.ts'
 import {cycleFailure, kuratowskiFailure, levelCrossingFailure, obstructionFailure, tierPathFailure, undecidedDiagnostic} from './failures.ts'
+import {mirrorUpwardEmbedding, writtenOrderScore} from './written-order.ts'
 import {assignLevels, joinLabelledEdges, originalEdge, splitLabelledEdges, testLevelPlanarity, type EdgeLabelGraph, type LevelItem} from '../level/index.ts'
 import {attachFix, type Fix} from '../explain/attach-fix.ts'
 import {checkParsedLimits, checkTextLimits, resolveLimits, tooManyEdges, type Limits} from './limits.ts'
@@ -22,6 +23,12 @@ export interface CheckSettings {
   now?: () => number
   /** Size limits (each field defaults to `defaultLimits`); past one, the status is `too-large`. */
   limits?: Readonly<Partial<Limits>> | undefined
+  /**
+   * Between the upward embedding found and its mirror image, take the one whose out-edges agree more
+   * with the written order (check/written-order.ts). Default false for now: turning it on changes some
+   * pictures (golden SVGs need an update with it).
+   */
+  preferWrittenOrder?: boolean
 }
 
 export const defaultBudgetMillis = 3000
@@ -122,14 +129,17 @@ function checkStages(text: string, settings: Readonly<CheckSettings>): DiagramCh
 
   const upward = testUpwardPlanarity(work, {maxMillis: deadline - now(), now})
   if (upward.status === 'upward') {
-    const original = split ? joinLabelledEdges(split, graph, upward.upward) : upward.upward
+    const found = split ? joinLabelledEdges(split, graph, upward.upward) : upward.upward
+    const mirror = settings.preferWrittenOrder === true && writtenOrderScore(mirrorUpwardEmbedding(found)) > writtenOrderScore(found)
+    const original = mirror ? mirrorUpwardEmbedding(found) : found
+    const splitUpward = split && mirror ? mirrorUpwardEmbedding(upward.upward) : upward.upward
     return {
       status: 'upward',
       diagnostics,
       parsed,
       graph,
       upward: original,
-      ...(split ? {labels: {...split, upward: upward.upward}} : {}),
+      ...(split ? {labels: {...split, upward: splitUpward}} : {}),
       ...(levels ? {levels} : {})
     }
   }
