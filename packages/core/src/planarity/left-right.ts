@@ -21,8 +21,9 @@ export interface SimpleGraph {
 }
 
 /**
- * Rotation of a planar simple graph: `order[start[v] .. start[v+1])` are the edge ids around v in one
+ * Rotation of a planar simple graph: `order[start[v] .. start[v+1])` are the half-edges around v in one
  * consistent cyclic orientation (clockwise under the face-on-the-left convention of rotation-system.ts).
+ * Half-edge 2e is edge e's end at a[e], 2e+1 its end at b[e] (so the edge id is h >> 1).
  */
 export interface SimpleRotation {
   readonly start: Int32Array
@@ -67,6 +68,7 @@ function run(g: SimpleGraph, embed: boolean): SimpleRotation | null {
   const height = new Int32Array(n).fill(NONE)
   const parentEdge = new Int32Array(n).fill(NONE)
   const src = new Int32Array(m).fill(NONE) // oriented edge src -> dst
+  const flip = new Uint8Array(m) // 1 where src[e] is g.b[e]
   const dst = new Int32Array(m)
   const lowpt = new Int32Array(m)
   const lowpt2 = new Int32Array(m)
@@ -101,7 +103,8 @@ function run(g: SimpleGraph, embed: boolean): SimpleRotation | null {
       if (cursor[v]! < adjStart[v + 1]!) {
         const e = adj[cursor[v]!++]!
         if (src[e] !== NONE) continue
-        const w = g.a[e] === v ? g.b[e]! : g.a[e]!
+        let w = g.b[e]!
+        if (w === v) { w = g.a[e]!; flip[e] = 1 }
         src[e] = v
         dst[e] = w
         lowpt[e] = height[v]!
@@ -345,7 +348,8 @@ function run(g: SimpleGraph, embed: boolean): SimpleRotation | null {
     if (f === NONE) continue
     let k = start[v]!
     let h = f
-    do { order[k++] = h >> 1; h = next[h]! } while (h !== f)
+    // Internal half-edge 2e is at src[e]; report it in the a/b convention of the input.
+    do { order[k++] = h ^ flip[h >> 1]!; h = next[h]! } while (h !== f)
   }
   return {start, order}
 }

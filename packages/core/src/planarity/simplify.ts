@@ -16,6 +16,8 @@ export interface Simplified {
   readonly parallel: Int32Array
   /** g's self-loops. */
   readonly loops: Int32Array
+  /** 1 where the tail of g's edge original[s] is simple.a[s] (so its head is simple.b[s]), else 0. */
+  readonly repTailIsA: Uint8Array
 }
 
 export function simplify(g: Digraph): Simplified {
@@ -27,15 +29,17 @@ export function simplify(g: Digraph): Simplified {
   const a = new Int32Array(m)
   const b = new Int32Array(m)
   const original = new Int32Array(m)
+  const repTailIsA = new Uint8Array(m)
   let k = 0
   const loops: number[] = []
-  const visit = (u: number, e: number, w: number): void => {
+  const visit = (u: number, e: number, w: number, uIsTail: number): void => {
     if (w <= u) return // loops are taken from out-lists only; other edges from their smaller end
     if (stamp[w] !== u) {
       stamp[w] = u
       simpleAt[w] = k
       a[k] = u
       b[k] = w
+      repTailIsA[k] = uIsTail
       original[k++] = e
     }
     classOf[e] = simpleAt[w]!
@@ -44,11 +48,11 @@ export function simplify(g: Digraph): Simplified {
     for (let i = g.outStart[u]!; i < g.outStart[u + 1]!; i++) {
       const e = g.outEdges[i]!
       if (g.head[e] === u) loops.push(e)
-      else visit(u, e, g.head[e]!)
+      else visit(u, e, g.head[e]!, 1)
     }
     for (let i = g.inStart[u]!; i < g.inStart[u + 1]!; i++) {
       const e = g.inEdges[i]!
-      if (g.tail[e] !== u) visit(u, e, g.tail[e]!)
+      if (g.tail[e] !== u) visit(u, e, g.tail[e]!, 0)
     }
   }
   const parallelStart = new Int32Array(k + 1)
@@ -64,10 +68,11 @@ export function simplify(g: Digraph): Simplified {
     if (s >= 0 && original[s] !== e) parallel[fill[s]!++] = e
   }
   return {
-    simple: {vertexCount: n, a: a.slice(0, k), b: b.slice(0, k)},
-    original: original.slice(0, k),
+    simple: {vertexCount: n, a: k === m ? a : a.slice(0, k), b: k === m ? b : b.slice(0, k)},
+    original: k === m ? original : original.slice(0, k),
     parallelStart,
     parallel,
     loops: Int32Array.from(loops),
+    repTailIsA: k === m ? repTailIsA : repTailIsA.slice(0, k),
   }
 }

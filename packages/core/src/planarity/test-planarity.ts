@@ -30,35 +30,45 @@ export function testPlanarity(g: Digraph): PlanarityResult {
 function liftRotation(g: Digraph, s: Simplified, rot: SimpleRotation): RotationSystem {
   const n = g.vertexCount
   // One buffer for all rotations (2 entries per edge), each vertex a view into it: far fewer
-  // allocations than one array per vertex.
+  // allocations than one array per vertex. Views are built with the (buffer, offset, length)
+  // constructor, which is cheaper than subarray(); at 10^5+ vertices their creation and garbage
+  // collection is a visible share of the whole test.
   const buffer = new Int32Array(2 * g.edgeCount)
-  const rotation: Int32Array[] = []
+  const bytes = buffer.buffer
+  const rotation: Int32Array[] = new Array<Int32Array>(n)
   const fill = new Int32Array(n)
+  const {original, repTailIsA, parallelStart, parallel} = s
+  const hasParallel = parallel.length > 0
+  const {start, order} = rot
   let offset = 0
   for (let v = 0; v < n; v++) {
     const deg = g.outStart[v + 1]! - g.outStart[v]! + g.inStart[v + 1]! - g.inStart[v]!
-    const r = buffer.subarray(offset, offset + deg)
+    const base = offset
     offset += deg
-    rotation.push(r)
-    let k = 0
-    for (let i = rot.start[v]!; i < rot.start[v + 1]!; i++) {
-      const se = rot.order[i]!
-      const rep = s.original[se]!
-      const p0 = s.parallelStart[se]!, p1 = s.parallelStart[se + 1]!
-      if (g.tail[rep] === v) {
-        r[k++] = rep
-        for (let j = p0; j < p1; j++) r[k++] = s.parallel[j]!
+    let k = base
+    for (let i = start[v]!; i < start[v + 1]!; i++) {
+      const h = order[i]!
+      const se = h >> 1
+      const rep = original[se]!
+      if (!hasParallel) { buffer[k++] = rep; continue }
+      // v is the simple edge's a-end when h is even; rep leaves v iff its tail is that end.
+      const repLeaves = (h & 1) === 0 ? repTailIsA[se] === 1 : repTailIsA[se] === 0
+      const p0 = parallelStart[se]!, p1 = parallelStart[se + 1]!
+      if (repLeaves) {
+        buffer[k++] = rep
+        for (let j = p0; j < p1; j++) buffer[k++] = parallel[j]!
       } else {
-        for (let j = p1 - 1; j >= p0; j--) r[k++] = s.parallel[j]!
-        r[k++] = rep
+        for (let j = p1 - 1; j >= p0; j--) buffer[k++] = parallel[j]!
+        buffer[k++] = rep
       }
     }
     fill[v] = k
+    rotation[v] = new Int32Array(bytes, 4 * base, deg)
   }
   for (const e of s.loops) {
     const v = g.tail[e]!
-    rotation[v]![fill[v]!++] = e
-    rotation[v]![fill[v]!++] = e
+    buffer[fill[v]!++] = e
+    buffer[fill[v]!++] = e
   }
   return {graph: g, rotation}
 }
