@@ -1,0 +1,162 @@
+/**
+ * `pnpm bench layout [--quick]`: layout time, area, bends and total edge length of layoutUpward, against
+ * @dagrejs/dagre (a general-purpose layered layout: Sugiyama-style ranking, crossing reduction by
+ * sweeps, coordinate assignment) on the same graphs with the same box sizes and gaps, in one run.
+ *
+ * Boxes: labels "item N" (every seventh with a second line) measured with labelBox; SVG time is
+ * renderSvg (hast, svgo) on our layout.
+ * Graphs: the upward planar North DAGs (/work/shared/data/north, see SOURCE.md there), each through
+ * the exact upward test and stAugment; and random upward planar graphs of 100 .. 10,000 vertices
+ * (spanning subgraphs of random planar st-graphs; which generator and augmentation per size is printed
+ * with the table). The layout time excludes the test and the augmentation (printed apart).
+ * Crossings are counted geometrically on both drawings (layoutStats); ours must be 0.
+ */
+import {readdirSync} from 'node:fs'
+import {join} from 'node:path'
+import dagre from '@dagrejs/dagre'
+import {createDigraph, type Digraph} from '../packages/core/src/graph/digraph.ts'
+import {testUpwardPlanarity} from '../packages/core/src/upward/index.ts'
+import {stAugment, type StAugmentation} from '../packages/core/src/augment/index.ts'
+import {defaultSpacing, layoutStats, layoutUpward, type Layout} from '../packages/core/src/layout/index.ts'
+import {readGraphml} from '../packages/core/test/support/graphml.ts'
+import {randomUpwardPlanar} from '../packages/core/test/support/random-st.ts'
+import {augmentationOfRandomUpward, randomLayoutCase} from '../packages/core/test/support/layout-st-generator.ts'
+import {labelBox} from '../packages/core/src/measure/index.ts'
+import {renderSvg} from '../packages/svg/src/index.ts'
+
+type Box = {width: number; height: number}
+
+/** Labels of one or two lines (every seventh vertex has a second line), boxes measured by labelBox. */
+function labelsFor(n: number): {labels: string[]; boxes: Box[]} {
+  const labels = Array.from({length: n}, (_, v) => (v % 7 === 3 ? `item ${v}\nsecond line` : `item ${v}`))
+  return {labels, boxes: labels.map((l) => {
+    const b = labelBox(l)
+    return {width: b.width, height: b.height}
+  })}
+}
+const quick = process.argv.includes('--quick')
+
+function dagreLayout(g: Digraph, boxes: Box[]): Layout {
+  const d = new dagre.graphlib.Graph({multigraph: true})
+  d.setGraph({rankdir: 'BT', nodesep: defaultSpacing.node, edgesep: defaultSpacing.edge, ranksep: defaultSpacing.layer, marginx: 0, marginy: 0})
+  d.setDefaultEdgeLabel(() => ({}))
+  for (let v = 0; v < g.vertexCount; v++) d.setNode(String(v), {width: boxes[v]!.width, height: boxes[v]!.height})
+  for (let e = 0; e < g.edgeCount; e++) d.setEdge(String(g.tail[e]), String(g.head[e]), {}, String(e))
+  dagre.layout(d)
+  const nodes = Array.from({length: g.vertexCount}, (_, v) => {
+    const n = d.node(String(v))
+    return {vertex: v, x: n.x, y: n.y, width: boxes[v]!.width, height: boxes[v]!.height}
+  })
+  const edges = Array.from({length: g.edgeCount}, (_, e) => {
+    const pts = d.edge({v: String(g.tail[e]), w: String(g.head[e]), name: String(e)}).points as Array<{x: number; y: number}>
+    return {edge: e, points: pts.map((p): [number, number] => [p.x, p.y])}
+  })
+  const graph = d.graph()
+  return {flow: 'up', width: graph.width ?? 0, height: graph.height ?? 0, nodes, edges}
+}
+
+function time<T>(f: () => T, repeat = 1): [T, number] {
+  let out!: T
+  const t0 = performance.now()
+  for (let i = 0; i < repeat; i++) out = f()
+  return [out, (performance.now() - t0) / repeat]
+}
+
+interface Row {
+  name: string
+  n: number
+  m: number
+  prepMs: number
+  oursMs: number
+  svgMs: number
+  dagreMs: number
+  ours: ReturnType<typeof layoutStats>
+  theirs: ReturnType<typeof layoutStats>
+  /** Distinct box-centre rows: ours, dagre's. */
+  rows: [number, number]
+}
+
+const rowsOf = (l: Layout): number => new Set(l.nodes.map((n) => n.y)).size
+
+function compare(name: string, g: Digraph, st: StAugmentation, prepMs: number, withDagre: boolean): Row {
+  const {labels, boxes} = labelsFor(g.vertexCount)
+  const repeat = g.vertexCount < 300 ? 5 : 1
+  layoutUpward({graph: g, st, boxes, flow: 'up'}) // warm
+  const [ours, oursMs] = time(() => layoutUpward({graph: g, st, boxes, flow: 'up'}), repeat)
+  const [, svgMs] = time(() => renderSvg({layout: ours, graph: g, labels}), repeat)
+  let theirs: Layout = {flow: 'up', width: NaN, height: NaN, nodes: [], edges: []}
+  let dagreMs = NaN
+  if (withDagre) [theirs, dagreMs] = time(() => dagreLayout(g, boxes), repeat)
+  const os = layoutStats(ours)
+  if (os.crossings !== 0) throw new Error(`${name}: our layout has ${os.crossings} crossings`)
+  const ts = withDagre ? layoutStats(theirs) : {area: NaN, aspectRatio: NaN, bends: NaN, totalEdgeLength: NaN, crossings: NaN}
+  return {name, n: g.vertexCount, m: g.edgeCount, prepMs, oursMs, svgMs, dagreMs, ours: os, theirs: ts, rows: [rowsOf(ours), withDagre ? rowsOf(theirs) : NaN]}
+}
+
+const fmt = (x: number, d = 1): string => (Number.isFinite(x) ? x.toFixed(d) : '–')
+const sum = (xs: number[]): number => xs.reduce((a, b) => a + b, 0)
+
+// North DAGs.
+const NORTH = '/work/shared/data/north'
+const files = readdirSync(NORTH).filter((f) => f.endsWith('.graphml')).sort()
+const north: Row[] = []
+for (const [i, f] of files.entries()) {
+  if (quick && i % 10 !== 0) continue
+  const {vertexCount, edges} = readGraphml(join(NORTH, f))
+  const g = createDigraph(vertexCount, edges)
+  const [st, prepMs] = time(() => {
+    const r = testUpwardPlanarity(g)
+    return r.status === 'upward' ? stAugment(r.upward) : undefined
+  })
+  if (!st) continue
+  north.push(compare(f, g, st, prepMs, true))
+}
+const ratio = (rows: Row[], f: (r: Row) => number, g: (r: Row) => number): number => sum(rows.map(f)) / sum(rows.map(g))
+const median = (xs: number[]): number => {
+  const s = xs.slice().sort((a, b) => a - b)
+  return s.length ? s[Math.floor(s.length / 2)]! : NaN
+}
+console.log(`North DAGs, upward planar: ${north.length} graphs (${sum(north.map((r) => r.n))} vertices, ${sum(north.map((r) => r.m))} edges)`)
+console.log(`  SVG time total (renderSvg, optimized): ${fmt(sum(north.map((r) => r.svgMs)))} ms`)
+console.log(`  layout time total: ours ${fmt(sum(north.map((r) => r.oursMs)))} ms, dagre ${fmt(sum(north.map((r) => r.dagreMs)))} ms (ratio ours/dagre ${fmt(ratio(north, (r) => r.oursMs, (r) => r.dagreMs), 3)}); upward test + augmentation ${fmt(sum(north.map((r) => r.prepMs)))} ms`)
+console.log(`  crossings: ours ${sum(north.map((r) => r.ours.crossings))}, dagre ${sum(north.map((r) => r.theirs.crossings))} in ${north.filter((r) => r.theirs.crossings > 0).length} graphs`)
+const areaRatios = north.map((r) => r.ours.area / r.theirs.area).filter(Number.isFinite)
+console.log(`  area ours/dagre: total ${fmt(ratio(north, (r) => r.ours.area, (r) => r.theirs.area), 3)}, median per graph ${fmt(median(areaRatios), 3)}, graphs where ours is larger ${areaRatios.filter((x) => x > 1).length}/${areaRatios.length}`)
+console.log(`  layers (distinct rows of boxes) ours ${sum(north.map((r) => r.rows[0]))}, dagre ${sum(north.map((r) => r.rows[1]))}`)
+console.log(`  bends ours ${sum(north.map((r) => r.ours.bends))}, dagre ${sum(north.map((r) => r.theirs.bends))}; total edge length ours/dagre ${fmt(ratio(north, (r) => r.ours.totalEdgeLength, (r) => r.theirs.totalEdgeLength), 3)}`)
+
+// Generated graphs. randomUpwardPlanar (the upward tests' generator) becomes very slow to generate
+// beyond a few thousand vertices, so the two largest sizes come from the layout tests' generator
+// (randomLayoutCase: a spanning subgraph of a random planar st-graph, which is its augmentation).
+console.log('\nGenerated (one graph per size; source: R = randomUpwardPlanar, exact test + stAugment below 1,000 vertices and its own st-graph from 1,000; L = randomLayoutCase with its own st-graph)')
+console.log('n | m | source | test+augment ms | ours ms | SVG ms | dagre ms | time ratio | area ratio | ours bends | dagre bends | length ratio | dagre crossings | aspect ours / dagre | layers ours / dagre')
+const sizes = quick ? [100, 300, 1000] : [100, 300, 1000, 3000, 10000]
+for (const n of sizes) {
+  let g: Digraph
+  let st: StAugmentation
+  let prepMs = 0
+  let source: string
+  if (n <= 1000) {
+    const r = randomUpwardPlanar(n, n, {keep: 0.7})
+    g = createDigraph(r.vertexCount, r.edges)
+    const gg = g
+    ;[st, prepMs] = time(() => {
+      if (n >= 1000) return augmentationOfRandomUpward(r).st
+      const res = testUpwardPlanarity(gg, {maxMillis: 10000})
+      return res.status === 'upward' ? stAugment(res.upward) : augmentationOfRandomUpward(r).st
+    })
+    source = 'R'
+  } else {
+    const c = randomLayoutCase(n, n, 0.95, 0.8)
+    g = c.graph
+    st = c.st
+    source = 'L'
+  }
+  // dagre takes about 15 to 45 s at 1,000 vertices on this machine and grows faster than linearly: run up to 1,000.
+  const row = compare(`random ${n}`, g, st, prepMs, n <= 1000)
+  console.log(
+    [row.n, row.m, source, fmt(row.prepMs), fmt(row.oursMs), fmt(row.svgMs), fmt(row.dagreMs), fmt(row.oursMs / row.dagreMs, 3), fmt(row.ours.area / row.theirs.area, 3),
+      row.ours.bends, row.theirs.bends, fmt(row.ours.totalEdgeLength / row.theirs.totalEdgeLength, 3), row.theirs.crossings,
+      `${fmt(row.ours.aspectRatio, 2)} / ${fmt(row.theirs.aspectRatio, 2)}`, `${row.rows[0]} / ${row.rows[1]}`].join(' | ')
+  )
+}
