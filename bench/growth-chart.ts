@@ -21,9 +21,9 @@ const esc = (s: string) => s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replac
 const fmt = (v: number) => (Math.round(v * 10) / 10).toString()
 
 export function logLogChart(series: readonly Series[], options: ChartOptions): string {
-  const width = options.width ?? 760
+  const width = options.width ?? 900
   const height = options.height ?? 480
-  const margin = {left: 78, right: 190, top: 44, bottom: 58}
+  const margin = {left: 78, right: 300, top: 44, bottom: 58}
   const all = series.flatMap((s) => s.points).filter(([x, y]) => x > 0 && y > 0)
   const lx = all.map(([x]) => Math.log10(x))
   const ly = all.map(([, y]) => Math.log10(y))
