@@ -57,14 +57,14 @@ describe('inlining drawings', () => {
     expect(a.html).toBe(b.html)
   })
 
-  it('leaves every other node untouched and a failing block as written in warn mode', async () => {
+  it('leaves every other node untouched and draws a failing block as a marked fallback in warn mode', async () => {
     const md = `# Title\n\n${diagram}\n\`\`\`upright\nx -> y -> x\n\`\`\`\n\n- a list\n`
     const processor = unified().use(remarkParse).use(remarkUpright, {onFailure: 'warn'})
     const before = processor.parse(md)
     const tree = (await processor.run(structuredClone(before))) as Root
-    expect(tree.children.map((c) => c.type)).toEqual(['heading', 'uprightFigure', 'code', 'list'])
+    expect(tree.children.map((c) => c.type)).toEqual(['heading', 'uprightFigure', 'uprightFigure', 'list'])
     expect(tree.children[0]).toEqual(before.children[0])
-    expect(tree.children[2]).toEqual(before.children[2])
+    expect(JSON.stringify(tree.children[2])).toContain('upright-fallback')
     expect(tree.children[3]).toEqual(before.children[3])
   })
 

@@ -50,11 +50,17 @@ describe('remark-upright', () => {
     expect(m.note).toContain('8:3')
   })
 
-  it('warns instead in warn mode and leaves the tree untouched', async () => {
+  it('warns instead in warn mode and draws the marked fallback in place of the block', async () => {
     const {file, tree, before, error} = await run(fixture('cycle-in-blockquote.md'), {onFailure: 'warn'})
     expect(error).toBeUndefined()
     expect(file.messages.map((m) => [m.fatal, m.ruleId])).toEqual([[false, 'cycle']])
-    expect(tree).toEqual(before)
+    expect(tree).not.toEqual(before)
+    const html = JSON.stringify(tree)
+    expect(html).toContain('upright-fallback')
+    expect(html).toContain('Not a valid hierarchy drawing')
+    // With drawing off, warn mode leaves the tree as it was.
+    const checkOnly = await run(fixture('cycle-in-blockquote.md'), {onFailure: 'warn', draw: false})
+    expect(checkOnly.tree).toEqual(checkOnly.before)
   })
 
   it('reports every failing diagram of a file before failing', async () => {

@@ -41,7 +41,17 @@ export interface RenderInput {
   title?: string | undefined
   /** Sentence read before the generated description (<desc>). */
   description?: string | undefined
+  /**
+   * Per edge id: true for an edge drawn in the warning style (dashed, in `--upright-marked-stroke`),
+   * as the fallback drawing of a failing diagram marks the edges it inserted or reversed.
+   */
+  marked?: ReadonlyArray<boolean | undefined> | undefined
+  /** A visible line of text under the drawing, in the warning colour (e.g. that it is not valid). */
+  note?: string | undefined
 }
+
+/** Classes and default colours of the warning style (fallback drawings only). */
+const MARKED = {lines: 'upright-marked', arrows: 'upright-marked-arrows', note: 'upright-note', light: '#b4541e', dark: '#f0a567'} as const
 
 export interface Options {
   /**
@@ -122,7 +132,9 @@ function fingerprint(input: RenderInput, settings: Omit<Settings, 'prefix'>): st
     input.ids ?? null,
     input.title ?? null,
     input.description ?? null,
-    settings
+    settings,
+    // Only when present, so the hash of an ordinary drawing is what it always was.
+    ...(input.marked || input.note !== undefined ? [input.marked ?? null, input.note ?? null] : [])
   ])
 }
 
@@ -156,10 +168,17 @@ function buildTree(input: RenderInput, settings: Settings): Root {
   // what svgo's mergePaths would produce, without its pairwise checks.
   let lineData = ''
   let arrowData = ''
+  let markedLineData = ''
+  let markedArrowData = ''
   for (const e of edges) {
     const shape = edgeShape(e.points, settings.edge, precision)
-    lineData += shape.line
-    arrowData += shape.arrow
+    if (input.marked?.[e.edge]) {
+      markedLineData += shape.line
+      markedArrowData += shape.arrow
+    } else {
+      lineData += shape.line
+      arrowData += shape.arrow
+    }
   }
 
   const boxes: Element[] = []
@@ -188,8 +207,20 @@ function buildTree(input: RenderInput, settings: Settings): Root {
   }
 
   const fontSize = labelBox('', settings.label).fontSize
-  const width = layout.width + 2 * margin
-  const height = layout.height + 2 * margin
+  const note = input.note?.trim() ? input.note.trim() : undefined
+  const noteBox = note === undefined ? undefined : labelBox(note, settings.label)
+  const noteSpace = noteBox ? noteBox.fontSize * 2 : 0
+  const width = Math.max(layout.width, noteBox ? noteBox.width : 0) + 2 * margin
+  const height = layout.height + 2 * margin + noteSpace
+  const warning = settings.theme.scheme === 'dark' ? MARKED.dark : MARKED.light
+  const markedRules =
+    markedLineData || note
+      ? `#${prefix} .${MARKED.lines}{fill:none;stroke:var(--upright-marked-stroke,${warning});stroke-dasharray:6 4}` +
+        `#${prefix} .${MARKED.arrows},#${prefix} .${MARKED.note}{fill:var(--upright-marked-stroke,${warning})}#${prefix} .${MARKED.note}{font-style:italic}` +
+        (settings.theme.scheme === 'auto'
+          ? `@media (prefers-color-scheme:dark){#${prefix} .${MARKED.lines}{stroke:var(--upright-marked-stroke,${MARKED.dark})}#${prefix} .${MARKED.arrows},#${prefix} .${MARKED.note}{fill:var(--upright-marked-stroke,${MARKED.dark})}}`
+          : '')
+      : ''
   const svg = s(
     'svg',
     {
@@ -206,7 +237,7 @@ function buildTree(input: RenderInput, settings: Settings): Root {
     [
       s('title', {id: `${prefix}-title`}, title),
       s('desc', {id: `${prefix}-desc`}, desc),
-      s('style', stylesheet(prefix, settings.theme, `${f(fontSize)}px ${FONT_STACK}`)),
+      s('style', stylesheet(prefix, settings.theme, `${f(fontSize)}px ${FONT_STACK}`) + markedRules),
       s('rect', {
         className: [CLASS.background],
         x: f(-margin),
@@ -221,7 +252,12 @@ function buildTree(input: RenderInput, settings: Settings): Root {
         : null,
       s('g', {className: [CLASS.boxes], fill: light.nodeFill, stroke: light.nodeStroke, strokeWidth: NODE_STROKE_WIDTH}, boxes),
       s('g', {className: [CLASS.labels], fill: light.nodeText, fontFamily: FONT_STACK, fontSize: f(fontSize), textAnchor: 'middle'}, labels),
-      arrowData ? s('path', {className: [CLASS.arrows], d: arrowData, fill: light.arrowFill}) : null
+      arrowData ? s('path', {className: [CLASS.arrows], d: arrowData, fill: light.arrowFill}) : null,
+      markedLineData
+        ? s('path', {className: [MARKED.lines], d: markedLineData, fill: 'none', stroke: warning, strokeWidth: EDGE_STROKE_WIDTH, strokeDasharray: '6 4', strokeLinecap: 'round', strokeLinejoin: 'round'})
+        : null,
+      markedArrowData ? s('path', {className: [MARKED.arrows], d: markedArrowData, fill: warning}) : null,
+      note ? s('text', {className: [MARKED.note], x: f(0), y: f(layout.height + margin / 2 + noteBox!.fontSize * 1.4), fill: warning}, note) : null
     ]
   )
   return {type: 'root', children: [svg]}

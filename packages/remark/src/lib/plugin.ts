@@ -13,15 +13,18 @@ import {defaultBudgetMillis, resolveLimits} from '@upright/core'
 import {openOutcomeCache, type CacheSetting} from './cache.ts'
 import {checkBlock, rememberResult, type BlockMessage} from './check-block.ts'
 import {checkSettings, checkTree, type TreeSettings} from './check-tree.ts'
-import {drawBlock, figureNode, replaceBlock, type Output} from './render-block.ts'
+import {drawBlock, fallbackStatuses, figureNode, renderFallbackBlock, replaceBlock, type Output} from './render-block.ts'
 
 export interface Options {
   /** Direction every edge points in diagrams that do not set `flow` (default: `'up'`). */
   flow?: Flow | null | undefined
   /**
    * What a diagram that fails its check does (default: `'fail'`): `'fail'` reports an error and fails
-   * the build after every diagram of the file has been checked; `'warn'` reports a warning and leaves
-   * the block as written.
+   * the build after every diagram of the file has been checked; `'warn'` reports a warning and, when
+   * drawing, replaces a diagram with a cycle, a crossing or no upward drawing by a marked fallback
+   * drawing (edges drawn out of place dashed in the warning colour, `--upright-marked-stroke`, and a
+   * note under it that it is not a valid hierarchy drawing; figure class `upright-fallback`); any other
+   * failing block is left as written.
    */
   onFailure?: 'fail' | 'warn' | null | undefined
   /** Milliseconds the upward test may spend per diagram before it answers `undecided` (default: 3000). */
@@ -76,8 +79,20 @@ export default function remarkUpright(options?: Readonly<Options> | null | undef
         const fresh = checkBlock(result.block, settings.flow ? {flow: settings.flow} : {}, checkSettings(settings))
         result = {...fresh, key: result.key}
       }
-      if (result.status !== 'upward' || !settings.draw) rememberResult(cache, result)
-      else {
+      if (result.status !== 'upward' || !settings.draw) {
+        rememberResult(cache, result)
+        if (settings.draw && settings.onFailure === 'warn' && fallbackStatuses.has(result.status)) {
+          // Warn mode still publishes a picture: the marked fallback drawing (cached outcomes keep no
+          // graph, so check again to draw).
+          const checked = result.check ? result : checkBlock(result.block, settings.flow ? {flow: settings.flow} : {}, checkSettings(settings))
+          try {
+            const drawn = renderFallbackBlock(checked, settings.output, usedPrefixes)
+            if (drawn.ok) replaceBlock(result, drawn.node)
+          } catch {
+            // No picture rather than a broken build: the warning below still says what is wrong.
+          }
+        }
+      } else {
         let outcome: {ok: true; node: RootContent} | {ok: false; reason: string}
         try {
           let svg = result.svg

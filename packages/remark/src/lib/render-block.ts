@@ -7,7 +7,7 @@ import type {Element, ElementContent, Root, RootContent as RootContentHast} from
 import {fromHtml} from 'hast-util-from-html'
 import type {Html, RootContent} from 'mdast'
 import {toHtml} from 'hast-util-to-html'
-import {drawDiagram, type DiagramOptions} from '@upright/core'
+import {drawDiagram, fallbackBoxes, layoutFallback, type DiagramOptions, type FallbackLayout} from '@upright/core'
 import {renderSvg} from '@upright/svg'
 import type {BlockResult} from './check-block.ts'
 
@@ -41,6 +41,53 @@ export function drawBlock(result: BlockResult): DrawOutcome {
   const {layout, labels, ids} = drawn.drawing
   const rendered = renderSvg({layout, graph: check.graph!, labels, ids, title: titleOf(result.options)})
   return {ok: true, svg: rendered.svg, hast: rendered.hast}
+}
+
+/** Failures that warn mode still draws, as a marked fallback (@upright/core's layoutFallback). */
+export const fallbackStatuses: ReadonlySet<string> = new Set(['cycle', 'nonplanar', 'not-upward'])
+
+/**
+ * Warn mode: the marked fallback drawing of a failing block (a maximal drawable part crossing-free,
+ * the other edges inserted or reversed, dashed in the warning colour) with a visible note under it.
+ */
+export function drawFallbackBlock(result: BlockResult): DrawOutcome {
+  const check = result.check
+  if (!check?.graph || !fallbackStatuses.has(check.status)) return {ok: false, reason: 'no fallback drawing for this block'}
+  const fallback = layoutFallback(check.graph, {flow: result.options.flow, boxes: fallbackBoxes(check.parsed), budget: {maxMillis: 3000}})
+  const labels = check.parsed.vertices.map((v) => v.label ?? v.key)
+  const ids = check.parsed.vertices.map((v) => v.key)
+  const rendered = renderSvg({
+    layout: fallback.layout,
+    graph: check.graph,
+    labels,
+    ids,
+    title: titleOf(result.options),
+    description: fallbackNote(fallback),
+    marked: fallback.marks.map((mark) => mark !== undefined),
+    note: fallbackNote(fallback)
+  })
+  return {ok: true, svg: rendered.svg, hast: rendered.hast}
+}
+
+/** The note under a fallback drawing: that it is not valid, and what was done to draw it. */
+export function fallbackNote(fallback: FallbackLayout): string {
+  const count = (k: number, one: string, many: string): string => `${k} ${k === 1 ? one : many}`
+  const parts: string[] = []
+  const forward = fallback.inserted.filter((e) => fallback.marks[e] === 'inserted').length
+  if (forward > 0) parts.push(`${count(forward, 'dashed edge', 'dashed edges')} added with ${count(fallback.crossings, 'crossing', 'crossings')}`)
+  if (fallback.reversed.length > 0) parts.push(`${count(fallback.reversed.length, 'dashed edge runs', 'dashed edges run')} against the flow`)
+  if (fallback.omitted.length > 0) parts.push(`${count(fallback.omitted.length, 'self-loop', 'self-loops')} left out`)
+  return `Not a valid hierarchy drawing: ${parts.join('; ')}.`
+}
+
+/** A fallback figure, marked with the class `upright-fallback`. */
+export function renderFallbackBlock(result: BlockResult, output: Output, usedPrefixes: Map<string, number>): RenderOutcome {
+  const drawn = drawFallbackBlock(result)
+  if (!drawn.ok) return drawn
+  const node = figureNode(result, drawn.svg, drawn.hast, output, usedPrefixes)
+  if (node.type === 'html') node.value = node.value.replace('<figure class="upright"', '<figure class="upright upright-fallback"')
+  else (node.data.hProperties['className'] as string[]).push('upright-fallback')
+  return {ok: true, node, svg: drawn.svg}
 }
 
 /**
