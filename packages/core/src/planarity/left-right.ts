@@ -65,81 +65,121 @@ function run(g: SimpleGraph, embed: boolean): SimpleRotation | null {
   }
 
   // ---- Phase 1: orientation ----------------------------------------------------------------------
-  const height = new Int32Array(n).fill(NONE)
-  const parentEdge = new Int32Array(n).fill(NONE)
-  const src = new Int32Array(m).fill(NONE) // oriented edge src -> dst
-  const flip = new Uint8Array(m) // 1 where src[e] is g.b[e]
-  const dst = new Int32Array(m)
-  const lowpt = new Int32Array(m)
+  const height0 = new Int32Array(n).fill(NONE)
+  const parentEdge0 = new Int32Array(n).fill(NONE)
+  const src0 = new Int32Array(m).fill(NONE) // oriented edge src0 -> dst0
+  const flip0 = new Uint8Array(m) // 1 where src0[e] is g.b[e]
+  const dst0 = new Int32Array(m)
+  const lowpt0 = new Int32Array(m)
   const lowpt2 = new Int32Array(m)
-  const nesting = new Int32Array(m)
-  const roots: number[] = []
+  const nesting0 = new Int32Array(m)
+  const roots0: number[] = []
+  const pre = new Int32Array(n) // DFS preorder number of each vertex
+  let preCount = 0
   const vstack = new Int32Array(n)
   const cursor = adjStart.slice(0, n)
 
   // Nesting depth of a finished edge vw, and lowpoint propagation to the parent edge of v.
   const finishOrient = (e: number, v: number): void => {
-    nesting[e] = 2 * lowpt[e]! + (lowpt2[e]! < height[v]! ? 1 : 0) // +1: chordal
-    const pe = parentEdge[v]!
+    nesting0[e] = 2 * lowpt0[e]! + (lowpt2[e]! < height0[v]! ? 1 : 0) // +1: chordal
+    const pe = parentEdge0[v]!
     if (pe === NONE) return
-    if (lowpt[e]! < lowpt[pe]!) {
-      lowpt2[pe] = Math.min(lowpt[pe]!, lowpt2[e]!)
-      lowpt[pe] = lowpt[e]!
-    } else if (lowpt[e]! > lowpt[pe]!) {
-      lowpt2[pe] = Math.min(lowpt2[pe]!, lowpt[e]!)
+    if (lowpt0[e]! < lowpt0[pe]!) {
+      lowpt2[pe] = Math.min(lowpt0[pe]!, lowpt2[e]!)
+      lowpt0[pe] = lowpt0[e]!
+    } else if (lowpt0[e]! > lowpt0[pe]!) {
+      lowpt2[pe] = Math.min(lowpt2[pe]!, lowpt0[e]!)
     } else {
       lowpt2[pe] = Math.min(lowpt2[pe]!, lowpt2[e]!)
     }
   }
 
   for (let r = 0; r < n; r++) {
-    if (height[r] !== NONE) continue
-    roots.push(r)
-    height[r] = 0
+    if (height0[r] !== NONE) continue
+    roots0.push(r)
+    height0[r] = 0
+    pre[r] = preCount++
     let sp = 0
     vstack[sp++] = r
     while (sp > 0) {
       const v = vstack[sp - 1]!
       if (cursor[v]! < adjStart[v + 1]!) {
         const e = adj[cursor[v]!++]!
-        if (src[e] !== NONE) continue
+        if (src0[e] !== NONE) continue
         let w = g.b[e]!
-        if (w === v) { w = g.a[e]!; flip[e] = 1 }
-        src[e] = v
-        dst[e] = w
-        lowpt[e] = height[v]!
-        lowpt2[e] = height[v]!
-        if (height[w] === NONE) {
-          parentEdge[w] = e
-          height[w] = height[v]! + 1
+        if (w === v) { w = g.a[e]!; flip0[e] = 1 }
+        src0[e] = v
+        dst0[e] = w
+        lowpt0[e] = height0[v]!
+        lowpt2[e] = height0[v]!
+        if (height0[w] === NONE) {
+          parentEdge0[w] = e
+          height0[w] = height0[v]! + 1
+          pre[w] = preCount++
           vstack[sp++] = w
         } else {
-          lowpt[e] = height[w]! // back edge
+          lowpt0[e] = height0[w]! // back edge
           finishOrient(e, v)
         }
       } else {
         sp--
-        const pe = parentEdge[v]!
-        if (pe !== NONE) finishOrient(pe, src[pe]!)
+        const pe = parentEdge0[v]!
+        if (pe !== NONE) finishOrient(pe, src0[pe]!)
       }
     }
   }
 
-  // Out-edges of every vertex sorted by nesting depth (counting sort: keys lie in 0 .. 2n+1).
+  // ---- Renumbering --------------------------------------------------------------------------------
+  // Phases 2 and 3 walk the DFS tree again, taking out-edges in nesting order. Under the input's labels
+  // that walk jumps all over memory, and at 10^6 edges cache and TLB misses, not the operation count,
+  // dominated the time (measured: bench/README.md, "Planarity"). So vertices are relabelled by DFS
+  // preorder and edges by their place in the sorted out-lists (grouped by source, by nesting depth
+  // within a group): a subtree is then a contiguous range of labels and a vertex's out-edges a
+  // contiguous range of edge ids, and the later passes read memory mostly in order. O(n + m).
+  const psrc = lowpt2 // lowpt2 is not needed after phase 1
+  for (let e = 0; e < m; e++) psrc[e] = pre[src0[e]!]!
   const outStart = new Int32Array(n + 1)
-  for (let e = 0; e < m; e++) outStart[src[e]! + 1]!++
+  for (let e = 0; e < m; e++) outStart[psrc[e]! + 1]!++
   for (let v = 0; v < n; v++) outStart[v + 1]! += outStart[v]!
-  const out = new Int32Array(m)
-  const sortOut = (key: Int32Array, offset: number, range: number): void => {
-    const count = new Int32Array(range + 1)
+  const byKey = new Int32Array(m)
+  const count = new Int32Array(4 * n + 5)
+  // Stable counting sort of all edges by key[e] + offset (in 0 .. range), then stable distribution
+  // into the out-list of group[e]: out-lists sorted by key.
+  const sortOut = (key: Int32Array, offset: number, range: number, group: Int32Array, out: Int32Array): void => {
+    count.fill(0, 0, range + 2)
     for (let e = 0; e < m; e++) count[key[e]! + offset + 1]!++
     for (let k = 0; k < range; k++) count[k + 1]! += count[k]!
-    const byKey = new Int32Array(m)
     for (let e = 0; e < m; e++) byKey[count[key[e]! + offset]!++] = e
-    const fill = outStart.slice(0, n)
-    for (let i = 0; i < m; i++) { const e = byKey[i]!; out[fill[src[e]!]!++] = e }
+    const fill = count // reuse: the key counts are spent
+    fill.set(outStart.subarray(0, n))
+    for (let i = 0; i < m; i++) { const e = byKey[i]!; out[fill[group[e]!]!++] = e }
   }
-  sortOut(nesting, 0, 2 * n + 2)
+  const perm = new Int32Array(m) // new edge id -> old edge id
+  sortOut(nesting0, 0, 2 * n + 2, psrc, perm)
+  const newOf = adj // the incidence lists are not needed after phase 1
+  const src = new Int32Array(m) // oriented edge src -> dst, new labels from here on
+  const dst = new Int32Array(m)
+  const lowpt = new Int32Array(m)
+  const nesting = new Int32Array(m)
+  const flip = new Uint8Array(m)
+  for (let i = 0; i < m; i++) {
+    const e = perm[i]!
+    newOf[e] = i
+    src[i] = psrc[e]!
+    dst[i] = pre[dst0[e]!]!
+    lowpt[i] = lowpt0[e]!
+    nesting[i] = nesting0[e]!
+    flip[i] = flip0[e]!
+  }
+  const height = new Int32Array(n)
+  const parentEdge = new Int32Array(n)
+  for (let v = 0; v < n; v++) {
+    const pv = pre[v]!
+    height[pv] = height0[v]!
+    const pe = parentEdge0[v]!
+    parentEdge[pv] = pe === NONE ? NONE : newOf[pe]!
+  }
+  const roots = roots0.map((r) => pre[r]!)
 
   // ---- Phase 2: testing ---------------------------------------------------------------------------
   // A conflict pair is two intervals L = [lLow .. lHigh], R = [rLow .. rHigh] of return edges, each
@@ -248,7 +288,7 @@ function run(g: SimpleGraph, embed: boolean): SimpleRotation | null {
     while (sp > 0) {
       const v = vstack[sp - 1]!
       if (idx[v]! < outStart[v + 1]!) {
-        const ei = out[idx[v]!]!
+        const ei = idx[v]! // out-edges of v are ids outStart[v] .. outStart[v+1] in nesting order
         const w = dst[ei]!
         stackBottom[ei] = top
         if (parentEdge[w] === ei) { vstack[sp++] = w; continue } // tree edge: descend first
@@ -289,7 +329,8 @@ function run(g: SimpleGraph, embed: boolean): SimpleRotation | null {
     }
   }
   for (let e = 0; e < m; e++) nesting[e] = nesting[e]! * side[e]!
-  sortOut(nesting, 2 * n + 1, 4 * n + 3)
+  const out = new Int32Array(m)
+  sortOut(nesting, 2 * n + 1, 4 * n + 3, src, out)
 
   // Cyclic doubly linked lists of half-edges around each vertex. Half-edge 2e sits at src[e],
   // 2e+1 at dst[e]. "next" is the clockwise successor.
@@ -339,17 +380,22 @@ function run(g: SimpleGraph, embed: boolean): SimpleRotation | null {
     }
   }
 
+  // Output in the input's labels: vertex v is pre[v] here, edge i is perm[i]. Internal half-edge 2i
+  // sits at src[i]; it is reported in the a/b convention of the input (2e at a[e], 2e+1 at b[e]).
   const start = new Int32Array(n + 1)
-  for (let e = 0; e < m; e++) { start[src[e]! + 1]!++; start[dst[e]! + 1]!++ }
+  for (let e = 0; e < m; e++) { start[g.a[e]! + 1]!++; start[g.b[e]! + 1]!++ }
   for (let v = 0; v < n; v++) start[v + 1]! += start[v]!
   const order = new Int32Array(2 * m)
   for (let v = 0; v < n; v++) {
-    const f = first[v]!
+    const f = first[pre[v]!]!
     if (f === NONE) continue
     let k = start[v]!
     let h = f
-    // Internal half-edge 2e is at src[e]; report it in the a/b convention of the input.
-    do { order[k++] = h ^ flip[h >> 1]!; h = next[h]! } while (h !== f)
+    do {
+      const i = h >> 1
+      order[k++] = 2 * perm[i]! + ((h & 1) ^ flip[i]!)
+      h = next[h]!
+    } while (h !== f)
   }
   return {start, order}
 }
