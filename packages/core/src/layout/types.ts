@@ -62,8 +62,9 @@ export interface LayoutEdge {
 }
 
 /**
- * A drawing in SVG coordinates (origin top-left, y downward). The bounding box of all boxes and
- * points is exactly [0, width] x [0, height]; add any margin when rendering.
+ * A drawing in SVG coordinates (origin top-left, y downward). All boxes and points lie in
+ * [0, width] x [0, height] and touch each side (up to float rounding from the final translation); add
+ * any margin when rendering. Edge end points lie exactly on their box's side (centre ± half size).
  */
 export interface Layout {
   flow: Flow
