@@ -72,7 +72,11 @@ export interface DiagramLevels {
 }
 
 export function checkDiagram(text: string, settings: Readonly<CheckSettings> = {}): DiagramCheck {
-  return attachFix(checkStages(text, settings), settings)
+  // One budget for the whole check: the fix suggestion gets what the stages left, never a fresh one.
+  const now = settings.now ?? (() => performance.now())
+  const deadline = now() + (settings.budgetMillis ?? defaultBudgetMillis)
+  const check = checkStages(text, {...settings, now})
+  return attachFix(check, {...settings, now, budgetMillis: Math.max(0, deadline - now())})
 }
 
 function checkStages(text: string, settings: Readonly<CheckSettings>): DiagramCheck {

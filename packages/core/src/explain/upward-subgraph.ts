@@ -34,6 +34,8 @@ export function maximalUpwardSubgraph(g: Digraph, budget?: Readonly<UpwardBudget
   const dropped: number[] = []
   let maximal = true
   const test = (extra: readonly number[]): 'yes' | 'no' | 'undecided' => {
+    // Past the deadline no test can finish: answer at once instead of starting one per chunk.
+    if (now() > deadline) return 'undecided'
     const ids = [...kept, ...extra]
     const sub = createDigraph(g.vertexCount, ids.map((e) => [g.tail[e]!, g.head[e]!] as const))
     const r = testUpwardPlanarity(sub, {maxMillis: Math.max(0, deadline - now()), now})

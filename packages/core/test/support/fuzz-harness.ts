@@ -57,7 +57,7 @@ export interface CaseSettings {
 /** Clock reads allowed past the deadline: each stage checks once more before it stops. */
 export const lateReadAllowance = 64
 
-const knownRules = new Set<string>([...parseRuleIds, ...limitRuleIds, 'cycle', 'nonplanar', 'not-upward', 'undecided'])
+const knownRules = new Set<string>([...parseRuleIds, ...limitRuleIds, 'cycle', 'nonplanar', 'not-upward', 'undecided', 'tiers-not-drawable', 'path-against-tiers'])
 
 export function referencePoint(text: string, offset: number): {line: number; column: number} {
   const bom = text.charCodeAt(0) === 0xfeff ? 1 : 0
@@ -211,8 +211,15 @@ function verifyOutcome(check: DiagramCheck, settings: CaseSettings, problems: st
     }
     case 'not-upward': {
       const c = check.certificate
-      if (!g || c?.kind !== 'obstruction') return void problems.push('not-upward without graph or obstruction')
       const {vertex, edge} = idsOf(check)
+      if (c?.kind === 'level') {
+        // Tiers: the named edges must be edges of the diagram (the level certificate has its own tests).
+        if (c.edges.length === 0 || c.edges.some(([a, b]) => !edge.has(`${vertex.get(a)},${vertex.get(b)}`))) {
+          problems.push('level certificate names an edge the diagram lacks')
+        }
+        return
+      }
+      if (!g || c?.kind !== 'obstruction') return void problems.push('not-upward without graph or obstruction')
       const edges = c.edges.map(([a, b]) => edge.get(`${vertex.get(a)},${vertex.get(b)}`) ?? -1)
       if (edges.some((e) => e < 0)) return void problems.push('obstruction names an edge the diagram lacks')
       const whole = testUpwardPlanarity(subgraph(g, edges), {maxMillis: 60_000})

@@ -120,12 +120,29 @@ export function printGraph(spec: GraphSpec, choices: readonly number[], bom: boo
   const idStyle = idStyles[pick(idStyles.length)]!
   const id = (v: number): string => idStyle(v)
   const labelled = new Set<number>()
+  const toned = new Set<number>()
+  const linked = new Set<number>()
+  /** A tone or a link now and then (each given at most once per vertex: a second is an error). */
+  const extras = (v: number): string => {
+    let out = ''
+    if (!toned.has(v) && pick(7) === 0) {
+      toned.add(v)
+      out += ` (${['external', 'new', 'retiring'][pick(3)]})`
+    }
+    if (!linked.has(v) && pick(7) === 0) {
+      linked.add(v)
+      out += ` <${['#v' + v, 'page.md', 'https://docs.example/p?q=1', '../up/' + v + '.md'][pick(4)]}>`
+    }
+    return out
+  }
   const mention = (v: number): string => {
     const label = spec.labels[v]
-    if (label === undefined || labelled.has(v) || pick(3) === 0) return id(v)
+    if (label === undefined || labelled.has(v) || pick(3) === 0) return id(v) + extras(v)
     labelled.add(v)
-    return `${id(v)}${pick(2) ? ' ' : ''}"${escapeLabel(label)}"`
+    return `${id(v)}${pick(2) ? ' ' : ''}"${escapeLabel(label)}"${extras(v)}`
   }
+  /** An edge label after an arrow now and then. */
+  const arrow = (): string => (pick(6) === 0 ? `->${space()}"${['calls', 'reads', '<b>', 'a "q"'][pick(4)]!.replace(/"/g, '\\"')}"` : '->')
   const space = (): string => [' ', '', '  ', '\t'][pick(4)]!
   const ending = (): string => ['\n', '\r\n', '\r', '\n'][pick(4)]!
   const lines: string[] = []
@@ -133,13 +150,13 @@ export function printGraph(spec: GraphSpec, choices: readonly number[], bom: boo
   for (let i = 0; i < spec.edges.length; i++) {
     const [a, b] = spec.edges[i]!
     used.add(a).add(b)
-    let line = `${space()}${mention(a)}${space()}->${space()}${mention(b)}`
+    let line = `${space()}${mention(a)}${space()}${arrow()}${space()}${mention(b)}`
     // Continue as a chain when the next edge starts where this one ends.
     while (i + 1 < spec.edges.length && spec.edges[i + 1]![0] === spec.edges[i]![1] && pick(2) === 1) {
       i++
       const c = spec.edges[i]![1]
       used.add(c)
-      line += `${space()}->${space()}${mention(c)}`
+      line += `${space()}${arrow()}${space()}${mention(c)}`
     }
     if (pick(6) === 0) line += `${space()}# note -> ${i}`
     lines.push(line)
@@ -147,6 +164,15 @@ export function printGraph(spec: GraphSpec, choices: readonly number[], bom: boo
   }
   for (let v = 0; v < spec.n; v++) {
     if (!used.has(v) || (spec.labels[v] !== undefined && !labelled.has(v))) lines.push(mention(v))
+  }
+  // Tiers now and then: a few vertices on named rows, in a random order (often against the edges).
+  if (spec.n >= 2 && pick(6) === 0) {
+    const tiers = 1 + pick(3)
+    const rows: number[][] = Array.from({length: tiers}, () => [])
+    for (let v = 0; v < spec.n; v++) if (pick(3) > 0) rows[pick(tiers)]!.push(v)
+    rows.forEach((row, t) => {
+      if (row.length > 0) lines.unshift(`tier t${t}${pick(2) ? ' "Row ' + t + '"' : ''}: ${row.map(id).join(', ')}`)
+    })
   }
   let text = ''
   for (const line of lines) text += line + ending()
@@ -165,7 +191,7 @@ export const graphArb: fc.Arbitrary<FuzzInput & {spec: GraphSpec}> = fc
   })
   .map(({spec, choices, bom, limits, ...rest}) => ({kind: 'graph' as const, spec, text: printGraph(spec, choices, bom), ...rest, ...(limits ? {limits} : {})}))
 
-const insertions = ['-', '>', '->', ',', '"', '\\', '#', '\n', '\r', ' ', '\t', 'x', 'é', '\u0301', '🍞', '\ud83c', '\ufeff', '\u00a0', '""', 'a -> b']
+const insertions = ['-', '>', '->', ',', '"', '\\', '#', '\n', '\r', ' ', '\t', 'x', 'é', '\u0301', '🍞', '\ud83c', '\ufeff', '\u00a0', '""', 'a -> b', '(', ')', '<', ':', '(new)', '<#x>', '<javascript:x>', 'tier t: ', '-> "e" ']
 
 type Mutation = {at: number; kind: number; what: number; length: number}
 
