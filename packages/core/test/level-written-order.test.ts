@@ -26,7 +26,7 @@ function drawnOrder(graph: Digraph, upward: UpwardEmbedding, v: number): number[
   const out: number[] = []
   for (let e = 0; e < graph.edgeCount; e++) if (graph.tail[e] === v) out.push(e)
   // The first bend (or end) of each edge after leaving v orders them left to right.
-  return out.sort((a, b) => layout.edges[a]!.points[1]!.x - layout.edges[b]!.points[1]!.x)
+  return out.sort((a, b) => layout.edges[a]!.points[1]![0] - layout.edges[b]!.points[1]![0])
 }
 
 describe('written order', () => {
@@ -57,5 +57,8 @@ describe('written order', () => {
     const order = outEdgesLeftToRight(up)[0]!
     expect(drawnOrder(result.graph!, up, 0)).toEqual(order)
     expect(order).toEqual([0, 1, 2])
+    const mirrored = mirrorUpwardEmbedding(up)
+    expect(outEdgesLeftToRight(mirrored)[0]).toEqual([2, 1, 0])
+    expect(drawnOrder(result.graph!, mirrored, 0)).toEqual([2, 1, 0])
   })
 })
