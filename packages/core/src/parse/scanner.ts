@@ -38,6 +38,7 @@ const lineFeed = 0x0a
 const carriageReturn = 0x0d
 const quote = 0x22
 const backslash = 0x5c
+const letterN = 0x6e
 const hash = 0x23
 const comma = 0x2c
 const dash = 0x2d
@@ -126,6 +127,13 @@ export function createScanner(text: string): Scanner {
           chunkStart = at
           continue
         }
+        // `\n` breaks a label onto a new line in its box (the label stays on one source line).
+        if (escaped === letterN) {
+          value += text.slice(chunkStart, at) + '\n'
+          at += 2
+          chunkStart = at
+          continue
+        }
         // A backslash at the end of the line is reported as the missing closing quote.
         if (at + 1 >= text.length || isLineEnding(escaped)) {
           at++
@@ -135,7 +143,7 @@ export function createScanner(text: string): Scanner {
         const shown = text.slice(at, at + 1 + width)
         return error(
           'bad-escape',
-          `Unknown escape \`${shown}\` in a label: only \`\\"\` and \`\\\\\` are escapes, so write \`\\\\\` for a backslash.`,
+          `Unknown escape \`${shown}\` in a label: only \`\\"\`, \`\\\\\` and \`\\n\` are escapes, so write \`\\\\\` for a backslash.`,
           at,
           at + 1 + width
         )
