@@ -1,5 +1,6 @@
 export type {Certificate, CertificateFix, DiagramStatus, UserEdge} from './certificate.ts'
-export type {CheckSettings, DiagramCheck} from './check-diagram.ts'
+export type {CheckSettings, DiagramCheck, DiagramLevels} from './check-diagram.ts'
+export {mirrorUpwardEmbedding, outEdgesLeftToRight, writtenOrderScore} from './written-order.ts'
 export {checkDiagram, defaultBudgetMillis} from './check-diagram.ts'
 export type {Limits, ResolvedLimits} from './limits.ts'
 export {defaultLimits, limitRuleIds, resolveLimits} from './limits.ts'
