@@ -93,13 +93,14 @@ describe('fallback drawing', () => {
     const files = readdirSync(dir).filter((f) => f.endsWith('.graphml')).sort()
     const rand = prng(17)
     let drawn = 0
-    for (let i = 0; i < files.length && drawn < 24; i += 13) {
+    for (let i = 0; i < files.length && drawn < 14; i += 13) {
       const {vertexCount, edges} = readGraphml(`${dir}/${files[i]}`)
       if (vertexCount > 60) continue
       const g = createDigraph(vertexCount, edges)
       if (testUpwardPlanarity(g, {maxMillis: 5000}).status !== 'not-upward') continue
       const boxes = boxesFor(rand, vertexCount)
-      const fb = layoutFallback(g, {flow: flows[drawn % 4]!, boxes})
+      const fb = layoutFallback(g, {flow: flows[drawn % 4]!, boxes, budget: {maxMillis: 30000}})
+      expect(fb.maximal).toBe(true)
       expect(fallbackProblems(g, fb, boxes), files[i]).toEqual([])
       // No cycle to break; an inserted edge is drawn reversed only when the augmentation forces it.
       for (const e of fb.reversed) expect(fb.marks[e]).toBe('reversed-inserted')
@@ -113,7 +114,7 @@ describe('fallback drawing', () => {
       }
       drawn++
     }
-    expect(drawn).toBeGreaterThanOrEqual(10)
+    expect(drawn).toBeGreaterThanOrEqual(8)
   })
 
   it('draws random digraphs with cycles, self-loops and forced crossings', () => {

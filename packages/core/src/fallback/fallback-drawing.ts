@@ -75,12 +75,59 @@ export function layoutFallback(g: Digraph, settings: Readonly<FallbackSettings>)
   const from = (e: number): number => (flipped.has(e) ? g.head[e]! : g.tail[e]!)
   const to = (e: number): number => (flipped.has(e) ? g.tail[e]! : g.head[e]!)
   const acyclic = createDigraph(n, drawable.map((e) => [from(e), to(e)] as const))
-  // 2. Maximal upward planar subgraph, in written order.
-  const sub = maximalUpwardSubgraph(acyclic, {maxMillis: Math.max(0, deadline - now()), now})
+  // 2. Maximal upward planar subgraphs grown in a few edge orders (written, reversed, by a topological
+  // order of the tails); each is drawn, and the drawing with the fewest edges against the flow, then
+  // the fewest crossings, is kept. Edges land against the flow only when the augmentation of the chosen
+  // subgraph forces it, which depends on the subgraph, so trying several pays.
+  const topo = topologicalRank(acyclic)
+  const orders = [
+    [...Array(drawable.length).keys()],
+    [...Array(drawable.length).keys()].reverse(),
+    [...Array(drawable.length).keys()].sort((a, b) => topo[acyclic.tail[a]!]! - topo[acyclic.tail[b]!]! || topo[acyclic.head[a]!]! - topo[acyclic.head[b]!]! || a - b)
+  ]
+  let best: FallbackLayout | undefined
+  let bestScore = Infinity
+  for (let k = 0; k < orders.length; k++) {
+    const share = Math.max(0, deadline - now()) / (orders.length - k)
+    const attempt = drawWithOrder(g, settings, drawable, flipped, acyclic, orders[k]!, omitted, {maxMillis: share, now})
+    const score = attempt.reversed.filter((e) => !flipped.has(e)).length * 1e6 + attempt.crossings
+    if (score < bestScore) {
+      best = attempt
+      bestScore = score
+    }
+    if (score === 0) break
+  }
+  return best!
+}
+
+/** Steps 2 to 5 for one edge order. */
+function drawWithOrder(
+  g: Digraph,
+  settings: Readonly<FallbackSettings>,
+  drawable: readonly number[],
+  flipped: ReadonlySet<number>,
+  acyclic: Digraph,
+  edgeOrder: readonly number[],
+  omitted: number[],
+  budget: UpwardBudget
+): FallbackLayout {
+  const n = g.vertexCount
+  const m = g.edgeCount
+  const now = budget.now ?? (() => performance.now())
+  const deadline = now() + budget.maxMillis
+  const fas = [...flipped]
+  const from = (e: number): number => (flipped.has(e) ? g.head[e]! : g.tail[e]!)
+  const to = (e: number): number => (flipped.has(e) ? g.tail[e]! : g.head[e]!)
+  const sub = maximalUpwardSubgraph(acyclic, {maxMillis: Math.max(0, deadline - now()), now}, edgeOrder)
   const droppedSet = new Set(sub.dropped.map((i) => drawable[i]!))
   const kept = drawable.filter((e) => !droppedSet.has(e))
   const dropped = drawable.filter((e) => droppedSet.has(e))
-  const keptGraph = createDigraph(n, kept.map((e) => [from(e), to(e)] as const))
+  // Each dropped edge (u, v) leaves a stub u -> x (x a new sink) and v a stub y -> v (y a new source)
+  // in the subgraph that is augmented: then u is never the top of the st-digraph nor v its bottom,
+  // which would force v below u. A pendant edge keeps a graph upward planar (it can always be drawn as a
+  // short upward stub), so the test below still says yes. The stubs are augmentation, never drawn.
+  const stubs: Array<[number, number]> = dropped.flatMap((e, i): Array<[number, number]> => [[from(e), n + 2 * i], [n + 2 * i + 1, to(e)]])
+  const keptGraph = createDigraph(n + 2 * dropped.length, [...kept.map((e) => [from(e), to(e)] as const), ...stubs])
   const tested = testUpwardPlanarity(keptGraph, {maxMillis: Math.max(1000, deadline - now()), now})
   if (tested.status !== 'upward') throw new Error('layoutFallback: the kept subgraph was tested upward planar and now is not')
   const st = stAugment(tested.upward)
@@ -132,6 +179,7 @@ export function layoutFallback(g: Digraph, settings: Readonly<FallbackSettings>)
   const vcount = h.rotation.length
   const isAdded = new Uint8Array(vcount)
   for (const v of st.addedVertices) isAdded[v] = 1
+  for (let v = n; v < n + 2 * dropped.length; v++) isAdded[v] = 1
   isAdded[bottom] = isAdded[top] = 1
   const vmap = new Int32Array(vcount)
   let next = 0
@@ -191,6 +239,25 @@ export function layoutFallback(g: Digraph, settings: Readonly<FallbackSettings>)
   const layout: Layout = {flow: planarLayout.flow, width: planarLayout.width, height: planarLayout.height, nodes, edges}
   const reversed = drawable.filter((e) => marks[e] === 'reversed' || marks[e] === 'reversed-inserted')
   return {layout, marks, omitted, inserted: dropped, reversed, crossings, maximal: sub.maximal}
+}
+
+/** Position of each vertex in a topological order (Kahn's algorithm, smallest id first among ties). */
+function topologicalRank(g: Digraph): Int32Array {
+  const indegree = new Int32Array(g.vertexCount)
+  for (let e = 0; e < g.edgeCount; e++) indegree[g.head[e]!]!++
+  const ready: number[] = []
+  for (let v = 0; v < g.vertexCount; v++) if (indegree[v] === 0) ready.push(v)
+  const rank = new Int32Array(g.vertexCount)
+  let k = 0
+  for (let i = 0; i < ready.length; i++) {
+    const v = ready[i]!
+    rank[v] = k++
+    for (let j = g.outStart[v]!; j < g.outStart[v + 1]!; j++) {
+      const w = g.head[g.outEdges[j]!]!
+      if (--indegree[w]! === 0) ready.push(w)
+    }
+  }
+  return rank
 }
 
 function addVertex(h: EditableEmbedding): number {
