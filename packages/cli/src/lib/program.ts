@@ -46,7 +46,7 @@ export async function run(argv: readonly string[], io: Io): Promise<number> {
     .option('--title <title>', 'title (for .upright files)')
     .option('--budget <ms>', 'milliseconds the upward test may spend per diagram', parseBudget)
     .option('--limits <json>', limitsHelp, parseLimits)
-    .option('-j, --jobs <n>', 'worker threads (default: the number of cores)', parsePositive)
+    .option('-j, --jobs <n>', 'worker threads (default: the number of cores from 64 files on, else 1)', parsePositive)
     .option('--shard <i/n>', 'check only the i-th of n disjoint slices of the files (for splitting across CI jobs)', parseShardOption)
     .option('--cache-dir <dir>', 'cache folder (default: node_modules/.cache/upright of the nearest package.json)')
     .option('--no-cache', 'check every diagram afresh, without reading or writing the cache')
