@@ -43,20 +43,15 @@ export function embedPlanarSimple(g: SimpleGraph): SimpleRotation | null {
 function run(g: SimpleGraph, embed: boolean): SimpleRotation | null {
   const n = g.vertexCount
   const m = g.a.length
-  // Euler's bound for simple planar graphs: m <= 3n - 6 when n >= 3 (counting only non-isolated vertices).
-  if (m > 2) {
-    const seen = new Uint8Array(n)
-    let used = 0
-    for (let e = 0; e < m; e++) {
-      if (seen[g.a[e]!] === 0) { seen[g.a[e]!] = 1; used++ }
-      if (seen[g.b[e]!] === 0) { seen[g.b[e]!] = 1; used++ }
-    }
-    if (m > 3 * used - 6) return null
-  }
-
-  // Undirected incidence lists (CSR).
+  // Undirected incidence lists (CSR); degrees first.
   const adjStart = new Int32Array(n + 1)
   for (let e = 0; e < m; e++) { adjStart[g.a[e]! + 1]!++; adjStart[g.b[e]! + 1]!++ }
+  // Euler's bound for simple planar graphs: m <= 3n - 6 when n >= 3 (counting only non-isolated vertices).
+  if (m > 2) {
+    let used = 0
+    for (let v = 1; v <= n; v++) if (adjStart[v] !== 0) used++
+    if (m > 3 * used - 6) return null
+  }
   for (let v = 0; v < n; v++) adjStart[v + 1]! += adjStart[v]!
   const adj = new Int32Array(2 * m)
   {
@@ -184,10 +179,12 @@ function run(g: SimpleGraph, embed: boolean): SimpleRotation | null {
   // ---- Phase 2: testing ---------------------------------------------------------------------------
   // A conflict pair is two intervals L = [lLow .. lHigh], R = [rLow .. rHigh] of return edges, each
   // linked from high to low through ref[]; an empty interval has both ends NONE.
-  const ref = new Int32Array(m).fill(NONE)
+  // Per-edge arrays of phase 1 are spent after the renumbering: reuse them (fewer large allocations,
+  // each of which costs page faults and garbage-collector pressure at 10^6 edges).
+  const ref = src0.fill(NONE)
   const side = new Int8Array(m).fill(1)
-  const lowptEdge = new Int32Array(m)
-  const stackBottom = new Int32Array(m)
+  const lowptEdge = lowpt0
+  const stackBottom = nesting0
   const lLow = new Int32Array(m + 1)
   const lHigh = new Int32Array(m + 1)
   const rLow = new Int32Array(m + 1)
@@ -317,7 +314,7 @@ function run(g: SimpleGraph, embed: boolean): SimpleRotation | null {
 
   // ---- Phase 3: embedding -------------------------------------------------------------------------
   // Resolve signs: side[e] *= sign(ref[e]) along ref chains, iteratively.
-  const chain = new Int32Array(m)
+  const chain = byKey // the next sort refills it
   for (let e0 = 0; e0 < m; e0++) {
     let len = 0
     let e = e0
@@ -334,7 +331,7 @@ function run(g: SimpleGraph, embed: boolean): SimpleRotation | null {
 
   // Cyclic doubly linked lists of half-edges around each vertex. Half-edge 2e sits at src[e],
   // 2e+1 at dst[e]. "next" is the clockwise successor.
-  const next = new Int32Array(2 * m)
+  const next = adj // spent since the renumbering (as newOf)
   const prev = new Int32Array(2 * m)
   const first = new Int32Array(n).fill(NONE)
   for (let v = 0; v < n; v++) {
@@ -352,8 +349,8 @@ function run(g: SimpleGraph, embed: boolean): SimpleRotation | null {
     next[at] = h; prev[h] = at; next[h] = nx; prev[nx] = h
   }
   const insertBefore = (h: number, at: number): void => insertAfter(h, prev[at]!)
-  const leftRef = new Int32Array(n)
-  const rightRef = new Int32Array(n)
+  const leftRef = height0 // spent since the renumbering
+  const rightRef = parentEdge0
   idx.set(outStart.subarray(0, n))
   for (const r of roots) {
     let sp = 0

@@ -56,6 +56,17 @@ export function simplify(g: Digraph): Simplified {
     }
   }
   const parallelStart = new Int32Array(k + 1)
+  // Nothing parallel (the usual case): skip two passes of random reads through classOf/original.
+  if (k + loops.length === m) {
+    return {
+      simple: {vertexCount: n, a: k === m ? a : a.slice(0, k), b: k === m ? b : b.slice(0, k)},
+      original: k === m ? original : original.slice(0, k),
+      parallelStart,
+      parallel: new Int32Array(0),
+      loops: Int32Array.from(loops),
+      repTailIsA: k === m ? repTailIsA : repTailIsA.slice(0, k),
+    }
+  }
   for (let e = 0; e < m; e++) {
     const s = classOf[e]!
     if (s >= 0 && original[s] !== e) parallelStart[s + 1]!++
