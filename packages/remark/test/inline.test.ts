@@ -74,3 +74,23 @@ describe('inlining drawings', () => {
     expect(tree.children.map((c) => c.type)).toEqual(['code'])
   })
 })
+
+describe('tones and links in the drawing', () => {
+  it('links boxes to their pages and marks tones in class and words', async () => {
+    const md = '```upright\nweb "Web shop" (external) <https://shop.example/> -> api (new) <#api>\napi -> ledger (retiring) <../ledger.md>\n```\n'
+    const {html, messages} = await toHtml(md)
+    expect(messages).toEqual([])
+    expect([...html.matchAll(/<a [^>]*href="([^"]+)"/g)].map((m) => m[1])).toEqual(['https://shop.example/', '#api', '../ledger.md'])
+    for (const tone of ['external', 'new', 'retiring']) expect(html).toContain(`class="upright-tone-${tone}"`)
+    // Never colour alone: the description says each tone in words (common practice, WCAG 1.4.1).
+    expect(html).toContain('Web shop (external: run outside the team) points to api (new: being added)')
+  })
+
+  it('draws no link for a target the renderer is handed directly that is not safe', async () => {
+    const {renderSvg} = await import('@upright/svg')
+    const layout = {flow: 'up' as const, width: 60, height: 34, nodes: [{vertex: 0, x: 30, y: 17, width: 60, height: 34}], edges: []}
+    const {svg} = renderSvg({layout, graph: {tail: [], head: []}, labels: ['x'], links: ['javascript:alert(1)']})
+    expect(svg).not.toContain('<a')
+    expect(svg).not.toContain('javascript')
+  })
+})

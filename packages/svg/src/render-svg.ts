@@ -13,7 +13,7 @@ import {fromHtml} from 'hast-util-from-html'
 import {toHtml} from 'hast-util-to-html'
 import {s} from 'hastscript'
 import {optimize, type Config} from 'svgo/browser'
-import {FONT_STACK, labelBox, type LabelBoxOptions} from '@upright/core'
+import {FONT_STACK, checkLinkTarget, labelBox, toneDescriptions, type LabelBoxOptions, type Tone} from '@upright/core'
 import {describeHierarchy, spokenLabel, type FlowWord} from './describe.ts'
 import {DEFAULT_EDGE_STYLE, edgeShape, type EdgeStyle} from './geometry.ts'
 import {hashText} from './hash.ts'
@@ -48,6 +48,13 @@ export interface RenderInput {
   marked?: ReadonlyArray<boolean | undefined> | undefined
   /** A visible line of text under the drawing, in the warning colour (e.g. that it is not valid). */
   note?: string | undefined
+  /**
+   * Per vertex: its tone (`external`, `new`, `retiring`), drawn with the theme's tone properties and
+   * said in words in <desc>, so colour is never the only carrier.
+   */
+  tones?: ReadonlyArray<Tone | undefined> | undefined
+  /** Per vertex: a link target (http(s), relative or `#fragment`); the box becomes a link. */
+  links?: ReadonlyArray<string | undefined> | undefined
 }
 
 /** Classes and default colours of the warning style (fallback drawings only). */
@@ -158,7 +165,8 @@ function buildTree(input: RenderInput, settings: Settings): Root {
     flow: layout.flow,
     vertices: nodes.map((n) => n.vertex),
     edges: pairs,
-    labels: input.labels,
+    // Tones are said in words beside the label, so the description never relies on colour.
+    labels: input.tones ? input.labels.map((l, v) => (input.tones![v] ? `${l} (${toneDescriptions[input.tones![v]!]})` : l)) : input.labels,
     ids: input.ids
   })
   const lead = input.description?.trim()
@@ -183,9 +191,21 @@ function buildTree(input: RenderInput, settings: Settings): Root {
 
   const boxes: Element[] = []
   const labels: Element[] = []
+  const links: Element[] = []
   for (const n of nodes) {
+    const tone = input.tones?.[n.vertex]
+    const href = input.links?.[n.vertex]
+    // The parser already refused unsafe targets; check again here, as this renderer may be fed directly.
+    if (href !== undefined && checkLinkTarget(href).ok) {
+      links.push(
+        s('a', {href, ariaLabel: input.labels[n.vertex] ?? ''}, [
+          s('rect', {x: f(n.x - n.width / 2), y: f(n.y - n.height / 2), width: f(n.width), height: f(n.height), rx: f(Math.min(settings.nodeRadius, n.width / 2, n.height / 2))})
+        ])
+      )
+    }
     boxes.push(
       s('rect', {
+        className: tone ? [`${CLASS.root}-tone-${tone}`] : undefined,
         x: f(n.x - n.width / 2),
         y: f(n.y - n.height / 2),
         width: f(n.width),
@@ -237,7 +257,7 @@ function buildTree(input: RenderInput, settings: Settings): Root {
     [
       s('title', {id: `${prefix}-title`}, title),
       s('desc', {id: `${prefix}-desc`}, desc),
-      s('style', stylesheet(prefix, settings.theme, `${f(fontSize)}px ${FONT_STACK}`) + markedRules),
+      s('style', stylesheet(prefix, settings.theme, `${f(fontSize)}px ${FONT_STACK}`) + markedRules + toneAndLinkRules(prefix, input)),
       s('rect', {
         className: [CLASS.background],
         x: f(-margin),
@@ -253,6 +273,7 @@ function buildTree(input: RenderInput, settings: Settings): Root {
       s('g', {className: [CLASS.boxes], fill: light.nodeFill, stroke: light.nodeStroke, strokeWidth: NODE_STROKE_WIDTH}, boxes),
       s('g', {className: [CLASS.labels], fill: light.nodeText, fontFamily: FONT_STACK, fontSize: f(fontSize), textAnchor: 'middle'}, labels),
       arrowData ? s('path', {className: [CLASS.arrows], d: arrowData, fill: light.arrowFill}) : null,
+      links.length > 0 ? s('g', {className: [`${CLASS.root}-links`], fill: 'transparent'}, links) : null,
       markedLineData
         ? s('path', {className: [MARKED.lines], d: markedLineData, fill: 'none', stroke: warning, strokeWidth: EDGE_STROKE_WIDTH, strokeDasharray: '6 4', strokeLinecap: 'round', strokeLinejoin: 'round'})
         : null,
@@ -332,4 +353,22 @@ export function renderSvg(input: RenderInput, options?: Readonly<Options> | null
 /** The optimized drawing as a hast tree (a root holding one <svg>), e.g. for a remark/rehype plugin. */
 export function toHast(input: RenderInput, options?: Readonly<Options> | null): Root {
   return renderSvg(input, options).hast
+}
+
+/**
+ * Tones and links, only when used. Tones change the line of a box, not just its colour (dashes for
+ * external, a heavier line for new, dots and a paler fill for retiring), so they survive greyscale and
+ * print; sites recolour them through --upright-tone-* properties.
+ */
+function toneAndLinkRules(prefix: string, input: RenderInput): string {
+  const id = `#${prefix}`
+  const used = new Set(input.tones?.filter((t): t is Tone => t !== undefined))
+  let css = ''
+  if (used.has('external')) css += `${id} .upright-tone-external{stroke-dasharray:5 3}`
+  if (used.has('new')) css += `${id} .upright-tone-new{stroke-width:var(--upright-tone-new-stroke-width,2.5px)}`
+  if (used.has('retiring')) css += `${id} .upright-tone-retiring{stroke-dasharray:1 3;fill-opacity:var(--upright-tone-retiring-fill-opacity,.45)}`
+  if (input.links?.some((l) => l !== undefined)) {
+    css += `${id} .upright-links a{cursor:pointer}${id} .upright-links a:focus{outline:none}${id} .upright-links a:focus rect,${id} .upright-links a:hover rect{stroke:var(--upright-link-focus,var(--upright-node-stroke,var(--_ns)));stroke-width:2.5px}`
+  }
+  return css
 }

@@ -56,7 +56,7 @@ function edgeIds(drawing: Drawing): Array<[string, string]> {
 }
 
 export function renderFileSvg(drawing: Drawing, title: string | undefined): string {
-  return renderSvg({layout: drawing.layout, graph: drawing.st.graph, labels: drawing.labels, ids: drawing.ids, title}).svg
+  return renderSvg({layout: drawing.layout, graph: drawing.st.graph, labels: drawing.labels, ids: drawing.ids, tones: drawing.tones, links: drawing.links, title}).svg
 }
 
 export type {Layout}

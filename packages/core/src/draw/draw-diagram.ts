@@ -7,7 +7,7 @@ import {stAugment, type StAugmentation} from '../augment/index.ts'
 import type {DiagramCheck} from '../check/index.ts'
 import {layoutUpward, type Layout, type Spacing} from '../layout/index.ts'
 import {labelBox, type LabelBoxOptions} from '../measure/index.ts'
-import type {Flow} from '../parse/index.ts'
+import type {Flow, Tone} from '../parse/index.ts'
 
 export interface DrawSettings {
   flow: Flow
@@ -22,6 +22,10 @@ export interface Drawing {
   labels: string[]
   /** Per vertex: the id as written. */
   ids: string[]
+  /** Per vertex: its tone, if any. */
+  tones: Array<Tone | undefined>
+  /** Per vertex: its checked link target, if any. */
+  links: Array<string | undefined>
   /** The planar st-digraph the layout was built from (its extra edges are not drawn). */
   st: StAugmentation
 }
@@ -38,5 +42,7 @@ export function drawDiagram(check: DiagramCheck, settings: Readonly<DrawSettings
   })
   const st = stAugment(check.upward)
   const layout = layoutUpward({graph: check.graph, st, boxes, flow: settings.flow, spacing: settings.spacing})
-  return {ok: true, drawing: {layout, labels, ids, st}}
+  const tones = check.parsed.vertices.map((v) => v.tone)
+  const links = check.parsed.vertices.map((v) => v.href)
+  return {ok: true, drawing: {layout, labels, ids, tones, links, st}}
 }
