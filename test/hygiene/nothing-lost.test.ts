@@ -1,8 +1,10 @@
 /**
  * Nothing lost: a Markdown tree that goes through remark-upright comes out with every node unchanged
  * (type, value, attributes, position, order) except the passing diagrams, each replaced by one figure
- * in the same place. Failing and warned diagrams (syntax error, cycle, K3,3, not upward, a size limit,
- * bad option, empty) stay exactly as written, in both failure modes, with drawings as hast and html.
+ * in the same place. Failing diagrams with no drawing (syntax error, a size limit, bad option, empty)
+ * stay exactly as written in both failure modes; a cycle, a K3,3 and a not-upward diagram stay as
+ * written in fail mode and become warn mode's marked fallback figure, in their own place. Drawings as
+ * hast and as html.
  */
 import remarkDirective from 'remark-directive'
 import remarkParse from 'remark-parse'
@@ -109,7 +111,11 @@ const isPassingDiagram = (node: RootContent): boolean =>
   (node.type === 'code' && node.lang === 'upright' && (node.value ?? '').startsWith('# passes')) ||
   (node.type === 'containerDirective' && node.name === 'upright' && node.attributes?.['title'] === 'Directive')
 
-const isFigure = (node: RootContent): boolean => node.type === 'uprightFigure' || (node.type === 'html' && (node.value ?? '').startsWith('<figure class="upright"'))
+/** The diagrams warn mode also replaces: by a marked fallback drawing (cycle, K3,3, not upward). */
+const hasFallback = (node: RootContent): boolean =>
+  node.type === 'code' && node.lang === 'upright' && /^(?:a -> b -> c -> a|a1, a2, a3|notes ->)/.test(node.value ?? '')
+
+const isFigure = (node: RootContent): boolean => node.type === 'uprightFigure' || (node.type === 'html' && (node.value ?? '').startsWith('<figure class="upright'))
 
 /** A deep copy without the nodes `drop` matches; returns how many were dropped. */
 function without(tree: Root, drop: (node: RootContent) => boolean): {tree: Root; dropped: number} {
@@ -143,10 +149,13 @@ describe('remark-upright changes nothing but the passing diagrams', () => {
         if (onFailure === 'fail') expect(outcome).toBeInstanceOf(Error)
         else expect(outcome).toBe('ok')
 
-        const expected = without(original, isPassingDiagram)
+        // Fail mode replaces the passing diagrams only; warn mode also draws the failing ones that
+        // have a fallback drawing. Everything else, failing blocks included, is untouched.
+        const replaced = onFailure === 'warn' ? (node: RootContent) => isPassingDiagram(node) || hasFallback(node) : isPassingDiagram
+        const expected = without(original, replaced)
         const actual = without(tree, isFigure)
-        expect(expected.dropped).toBe(3)
-        expect(actual.dropped).toBe(3)
+        expect(expected.dropped).toBe(onFailure === 'warn' ? 6 : 3)
+        expect(actual.dropped).toBe(expected.dropped)
         expect(actual.tree).toEqual(expected.tree)
 
         // The failing diagrams are all still there, and each was reported.

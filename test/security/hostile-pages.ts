@@ -72,7 +72,9 @@ export async function buildHostilePage(output: 'hast' | 'html'): Promise<BuiltHo
     .use(rehypeStringify, {allowDangerousHtml: raw})
   const file = await processor.process({path: 'hostile.md', value: hostileMarkdown()})
   const body = String(file)
-  const drawn = (body.match(/<figure class="upright"/g) ?? []).length
+  // Passing diagrams, and in warn mode the marked fallback drawings of failing ones (class
+  // "upright upright-fallback").
+  const drawn = (body.match(/<figure class="upright[ "]/g) ?? []).length
   const html = `<!doctype html>\n<html lang="en"><head><meta charset="utf-8"><title>Hostile labels</title></head><body>\n${body}\n</body></html>\n`
   return {html, drawn, messages: file.messages.map((m) => `${m.line}:${m.column} ${m.ruleId}`)}
 }
