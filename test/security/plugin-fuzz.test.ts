@@ -4,7 +4,8 @@
  * unified + remark-parse + remark-directive + remark-upright + remark-rehype + rehype-stringify.
  * In `warn` mode nothing throws; in `fail` mode the only thing thrown is a fatal vfile message. Every
  * message points inside the block it is about (between its opening and closing lines), and every
- * passing block becomes exactly one figure. fast-check, fixed seed.
+ * passing block becomes exactly one figure (and, in warn mode, each cycle, crossing or not-upward
+ * block one marked fallback figure). fast-check, fixed seed.
  */
 import fc from 'fast-check'
 import rehypeStringify from 'rehype-stringify'
@@ -71,7 +72,10 @@ describe('remark-upright on fuzzed diagrams', () => {
       const file = await processor.process({value: markdown})
       const html = String(file)
       const passing = blocksFound.filter((b) => b.status === 'upward').length
+      // Warn mode draws a cycle, a crossing or a not-upward diagram as a marked fallback figure.
+      const fallback = blocksFound.filter((b) => ['cycle', 'nonplanar', 'not-upward'].includes(b.status)).length
       expect((html.match(/<figure class="upright"/g) ?? []).length, JSON.stringify(markdown)).toBe(passing)
+      expect((html.match(/<figure class="upright upright-fallback"/g) ?? []).length, JSON.stringify(markdown)).toBe(fallback)
       for (const message of file.messages) {
         messages++
         const place = message.place as {start: Place; end: Place} | undefined
