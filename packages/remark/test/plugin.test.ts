@@ -102,3 +102,11 @@ describe('remark-upright', () => {
     expect(file.messages.map((m) => [m.line, m.column])).toEqual([[5, 1]])
   })
 })
+
+describe('diagrams inside other directives', () => {
+  it('checks a fence inside a :::note container at its file position', async () => {
+    const md = ':::note\nSome text.\n\n```upright\nx -> y -> x\n```\n:::\n'
+    const {file} = await run(md)
+    expect(file.messages.map((m) => [m.line, m.column, m.ruleId])).toEqual([[5, 6, 'cycle']])
+  })
+})

@@ -54,7 +54,8 @@ export function findDiagramBlocks(tree: Root, lines: SourceLines): DiagramBlock[
         const block = fromDirectiveText(parent, i, lines)
         blocks.push(block)
         i += block.nodes.length - 1
-      } else if ('children' in node && node.type !== 'containerDirective') {
+      } else if ('children' in node) {
+        // Other containers (lists, quotes, other directives such as :::note) may hold diagrams too.
         walk(node as Parent)
       }
     }
