@@ -24,6 +24,7 @@ import {fileURLToPath} from 'node:url'
 import {checkDiagram, createDigraph, drawDiagram, testPlanarity, testUpwardPlanarity, type Digraph} from '../packages/core/src/index.ts'
 import {renderSvg} from '../packages/svg/src/index.ts'
 import {fitExponent, logLogChart} from './growth-chart.ts'
+import {mulberry32 as prng} from '../test/support/random.ts'
 
 const args = process.argv.slice(2)
 const maxIndex = args.indexOf('--max')
@@ -31,17 +32,6 @@ const max = maxIndex >= 0 ? Number(args[maxIndex + 1]) : 100_000
 const sizes = [10, 30, 100, 300, 1000, 3000, 10_000, 30_000, 100_000].filter((n) => n <= max)
 const noLimits = {maxVertices: Infinity, maxEdges: Infinity, maxTextBytes: Infinity, maxLineLength: Infinity, maxLabelLength: Infinity}
 
-/** Mulberry32 (common practice), seeded. */
-function prng(seed: number): () => number {
-  let a = seed >>> 0
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0
-    let t = a
-    t = Math.imul(t ^ (t >>> 15), t | 1)
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61)
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296
-  }
-}
 
 interface Family {
   n: number

@@ -6,17 +6,8 @@
  * Median of 5 runs per size; the ratio is level time over upward time.
  */
 import {createDigraph, testLevelPlanarity, testUpwardPlanarity} from '../packages/core/src/index.ts'
+import {mulberry32 as prng} from '../test/support/random.ts'
 
-function prng(seed: number): () => number {
-  let s = seed >>> 0
-  return () => {
-    s = (s + 0x6d2b79f5) >>> 0
-    let t = s
-    t = Math.imul(t ^ (t >>> 15), t | 1)
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61)
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296
-  }
-}
 
 function levelPlanarGraph(levels: number, width: number, random: () => number): {n: number; edges: Array<[number, number]>; level: number[]} {
   const id = (l: number, i: number) => l * width + i

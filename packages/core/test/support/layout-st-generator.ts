@@ -20,18 +20,9 @@ import {createDigraph, type Digraph} from '../../src/graph/digraph.ts'
 import {traceFaces, type RotationSystem} from '../../src/embedding/rotation-system.ts'
 import type {StAugmentation} from '../../src/augment/index.ts'
 import type {RandomUpwardPlanar} from './random-st.ts'
+import {mulberry32 as prng} from '../../../../test/support/random.ts'
 
-/** mulberry32, a small seeded PRNG (common practice). */
-export function prng(seed: number): () => number {
-  let a = seed >>> 0
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0
-    let t = a
-    t = Math.imul(t ^ (t >>> 15), t | 1)
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61)
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296
-  }
-}
+export {mulberry32 as prng} from '../../../../test/support/random.ts'
 
 export interface EmbeddedSt {
   vertexCount: number

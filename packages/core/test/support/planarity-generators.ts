@@ -1,16 +1,6 @@
 /** Seeded graph generators for planarity tests and the planarity bench. */
 
-/** mulberry32: a small 32-bit seeded PRNG (common practice), uniform in [0, 1). */
-export function prng(seed: number): () => number {
-  let s = seed >>> 0
-  return () => {
-    s = (s + 0x6d2b79f5) >>> 0
-    let t = s
-    t = Math.imul(t ^ (t >>> 15), t | 1)
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61)
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296
-  }
-}
+export {mulberry32 as prng} from '../../../../test/support/random.ts'
 
 export type Edges = [number, number][]
 

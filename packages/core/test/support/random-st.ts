@@ -14,18 +14,9 @@
  */
 import {createDigraph} from '../../src/graph/digraph.ts'
 import type {RotationSystem} from '../../src/embedding/rotation-system.ts'
+import {mulberry32} from '../../../../test/support/random.ts'
 
-/** Mulberry32, a small seeded PRNG (common practice); returns floats in [0, 1). */
-export function mulberry32(seed: number): () => number {
-  let a = seed >>> 0
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0
-    let t = a
-    t = Math.imul(t ^ (t >>> 15), t | 1)
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61)
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296
-  }
-}
+export {mulberry32} from '../../../../test/support/random.ts'
 
 export interface EmbeddedGraphData {
   vertexCount: number
