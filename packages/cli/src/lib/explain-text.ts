@@ -3,12 +3,10 @@
  * position with its own frame (the check's report lists them as one line each), and the suggested fix.
  */
 import type {FileReport} from './check-files.ts'
-import {codeFrame, summaryLine, type TextStyle} from './format-text.ts'
-
-const ansi = {bold: '1', red: '31', yellow: '33', cyan: '36', dim: '2', green: '32'} as const
+import {codeFrame, painter, summaryLine, type TextStyle} from './format-text.ts'
 
 export function formatExplain(reports: readonly FileReport[], style: TextStyle): string {
-  const paint = (code: keyof typeof ansi, s: string) => (style.colour ? `\u001b[${ansi[code]}m${s}\u001b[0m` : s)
+  const paint = painter(style)
   const out: string[] = []
   for (const report of reports) {
     if (report.error) {

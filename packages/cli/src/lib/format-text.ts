@@ -9,10 +9,17 @@ export interface TextStyle {
   colour: boolean
 }
 
-const ansi = {bold: '1', red: '31', yellow: '33', cyan: '36', dim: '2'} as const
+const ansi = {bold: '1', red: '31', yellow: '33', cyan: '36', dim: '2', green: '32'} as const
+
+export type Paint = (code: keyof typeof ansi, s: string) => string
+
+/** Wrap text in an ANSI colour when the style asks for colour; otherwise leave it as it is. */
+export function painter(style: TextStyle): Paint {
+  return (code, s) => (style.colour ? `\u001b[${ansi[code]}m${s}\u001b[0m` : s)
+}
 
 export function formatText(reports: readonly FileReport[], style: TextStyle): string {
-  const paint = (code: keyof typeof ansi, s: string) => (style.colour ? `\u001b[${ansi[code]}m${s}\u001b[0m` : s)
+  const paint = painter(style)
   const out: string[] = []
   for (const report of reports) {
     if (report.error) {
@@ -57,7 +64,7 @@ export function summarize(reports: readonly FileReport[]) {
   return {files: reports.length, diagrams, passed, failed: diagrams - passed, unreadable}
 }
 
-export function codeFrame(lines: string[], m: Pick<BlockMessage, "place">, paint: (c: keyof typeof ansi, s: string) => string): string[] {
+export function codeFrame(lines: string[], m: Pick<BlockMessage, "place">, paint: Paint): string[] {
   const {start, end} = m.place
   const text = lines[start.line - 1]
   if (text === undefined) return []
