@@ -11,15 +11,14 @@
  */
 import {readdirSync} from 'node:fs'
 import {join} from 'node:path'
-import dagre from '@dagrejs/dagre'
+import {dagreLayout, type Box} from './support/dagre-layout.ts'
 import {createDigraph, type Digraph} from '../packages/core/src/graph/digraph.ts'
 import {testUpwardPlanarity} from '../packages/core/src/upward/index.ts'
-import {defaultSpacing, layoutStats, type Layout} from '../packages/core/src/layout/index.ts'
+import {layoutStats, type Layout} from '../packages/core/src/layout/index.ts'
 import {layoutFallback} from '../packages/core/src/fallback/index.ts'
 import {readGraphml} from '../packages/core/test/support/graphml.ts'
 import {labelBox} from '../packages/core/src/measure/index.ts'
 
-type Box = {width: number; height: number}
 const args = process.argv.slice(2)
 const quick = args.includes('--quick')
 const limitAt = args.indexOf('--limit')
@@ -33,25 +32,6 @@ function boxesFor(n: number): Box[] {
     const b = labelBox(v % 7 === 3 ? `item ${v}\nsecond line` : `item ${v}`)
     return {width: b.width, height: b.height}
   })
-}
-
-function dagreLayout(g: Digraph, boxes: Box[]): Layout {
-  const d = new dagre.graphlib.Graph({multigraph: true})
-  d.setGraph({rankdir: 'BT', nodesep: defaultSpacing.node, edgesep: defaultSpacing.edge, ranksep: defaultSpacing.layer, marginx: 0, marginy: 0})
-  d.setDefaultEdgeLabel(() => ({}))
-  for (let v = 0; v < g.vertexCount; v++) d.setNode(String(v), {width: boxes[v]!.width, height: boxes[v]!.height})
-  for (let e = 0; e < g.edgeCount; e++) d.setEdge(String(g.tail[e]), String(g.head[e]), {}, String(e))
-  dagre.layout(d)
-  const nodes = Array.from({length: g.vertexCount}, (_, v) => {
-    const n = d.node(String(v))
-    return {vertex: v, x: n.x, y: n.y, width: boxes[v]!.width, height: boxes[v]!.height}
-  })
-  const edges = Array.from({length: g.edgeCount}, (_, e) => {
-    const pts = d.edge({v: String(g.tail[e]), w: String(g.head[e]), name: String(e)}).points as Array<{x: number; y: number}>
-    return {edge: e, points: pts.map((p): [number, number] => [p.x, p.y])}
-  })
-  const graph = d.graph()
-  return {flow: 'up', width: graph.width ?? 0, height: graph.height ?? 0, nodes, edges}
 }
 
 interface Row {set: string; name: string; n: number; m: number; removed: number; against: number; ours: number; dummies: number; dagre: number; ms: number}

@@ -13,18 +13,17 @@
  */
 import {readdirSync} from 'node:fs'
 import {join} from 'node:path'
-import dagre from '@dagrejs/dagre'
+import {dagreLayout, type Box} from './support/dagre-layout.ts'
 import {createDigraph, type Digraph} from '../packages/core/src/graph/digraph.ts'
 import {testUpwardPlanarity} from '../packages/core/src/upward/index.ts'
 import {stAugment, type StAugmentation} from '../packages/core/src/augment/index.ts'
-import {defaultSpacing, layoutStats, layoutUpward, type Layout} from '../packages/core/src/layout/index.ts'
+import {layoutStats, layoutUpward, type Layout} from '../packages/core/src/layout/index.ts'
 import {readGraphml} from '../packages/core/test/support/graphml.ts'
 import {randomUpwardPlanar} from '../packages/core/test/support/random-st.ts'
 import {augmentationOfRandomUpward, randomLayoutCase} from '../packages/core/test/support/layout-st-generator.ts'
 import {labelBox} from '../packages/core/src/measure/index.ts'
 import {renderSvg} from '../packages/svg/src/index.ts'
 
-type Box = {width: number; height: number}
 
 /** Labels of one or two lines (every seventh vertex has a second line), boxes measured by labelBox. */
 function labelsFor(n: number): {labels: string[]; boxes: Box[]} {
@@ -35,25 +34,6 @@ function labelsFor(n: number): {labels: string[]; boxes: Box[]} {
   })}
 }
 const quick = process.argv.includes('--quick')
-
-function dagreLayout(g: Digraph, boxes: Box[]): Layout {
-  const d = new dagre.graphlib.Graph({multigraph: true})
-  d.setGraph({rankdir: 'BT', nodesep: defaultSpacing.node, edgesep: defaultSpacing.edge, ranksep: defaultSpacing.layer, marginx: 0, marginy: 0})
-  d.setDefaultEdgeLabel(() => ({}))
-  for (let v = 0; v < g.vertexCount; v++) d.setNode(String(v), {width: boxes[v]!.width, height: boxes[v]!.height})
-  for (let e = 0; e < g.edgeCount; e++) d.setEdge(String(g.tail[e]), String(g.head[e]), {}, String(e))
-  dagre.layout(d)
-  const nodes = Array.from({length: g.vertexCount}, (_, v) => {
-    const n = d.node(String(v))
-    return {vertex: v, x: n.x, y: n.y, width: boxes[v]!.width, height: boxes[v]!.height}
-  })
-  const edges = Array.from({length: g.edgeCount}, (_, e) => {
-    const pts = d.edge({v: String(g.tail[e]), w: String(g.head[e]), name: String(e)}).points as Array<{x: number; y: number}>
-    return {edge: e, points: pts.map((p): [number, number] => [p.x, p.y])}
-  })
-  const graph = d.graph()
-  return {flow: 'up', width: graph.width ?? 0, height: graph.height ?? 0, nodes, edges}
-}
 
 function time<T>(f: () => T, repeat = 1): [T, number] {
   let out!: T
