@@ -128,7 +128,19 @@ interface SwitchList {
   removed: boolean[]
 }
 
-export function stAugment(up: UpwardEmbedding): StAugmentation {
+export interface StAugmentOptions {
+  /**
+   * Asked before each face-saturating edge tail -> head is added; false skips that saturation (and
+   * true commits the edge, so a caller may record it). Lets a caller keep H acyclic together with
+   * edges it will add later (the fallback drawing's feasible subgraph). With a hook the saturation
+   * may get stuck; stAugment then returns undefined instead of throwing.
+   */
+  allowEdge?: (tail: number, head: number) => boolean
+}
+
+export function stAugment(up: UpwardEmbedding): StAugmentation
+export function stAugment(up: UpwardEmbedding, options: Readonly<StAugmentOptions>): StAugmentation | undefined
+export function stAugment(up: UpwardEmbedding, options: Readonly<StAugmentOptions> = {}): StAugmentation | undefined {
   const emb = up.embedding
   const g = emb.graph
   const n = g.vertexCount
@@ -149,15 +161,18 @@ export function stAugment(up: UpwardEmbedding): StAugmentation {
 
   for (let f = 0; f < faces.darts.length; f++) {
     const list = switchList(g, faces.darts[f]!, next, up.largeAngle)
-    saturate(rot, list)
+    saturate(rot, list, options.allowEdge)
     const alive = aliveNodes(list)
     if (!outerSet.has(f)) {
       if (alive.length !== 2 || alive.some((i) => list.large[i])) {
+        if (options.allowEdge) return undefined
         throw new Error(`stAugment: inner face ${f} did not saturate; the upward embedding is inconsistent`)
       }
       continue
     }
-    const [bottom, top] = outerChains(list, alive, f)
+    const chains = outerChains(list, alive, f, options.allowEdge !== undefined)
+    if (!chains) return undefined
+    const [bottom, top] = chains
     bottoms[outerIndex.get(f)!] = bottom
     tops[outerIndex.get(f)!] = top
   }
@@ -296,7 +311,7 @@ function switchList(g: Digraph, walk: Int32Array, next: Int32Array, largeAngle: 
 }
 
 /** Saturates every L, S, S triple of the list (in walk order), adding edges to rot. */
-function saturate(rot: Rotations, list: SwitchList): void {
+function saturate(rot: Rotations, list: SwitchList, allowEdge?: (tail: number, head: number) => boolean): void {
   let size = list.dart.length
   if (size < 3) return
   let x = 0
@@ -304,9 +319,9 @@ function saturate(rot: Rotations, list: SwitchList): void {
   while (quiet < size && size >= 3) {
     const y = list.next[x]!
     const z = list.next[y]!
-    if (list.large[x] && !list.large[y] && !list.large[z]) {
-      const vx = list.vertex[x]!
-      const vz = list.vertex[z]!
+    const vx = list.vertex[x]!
+    const vz = list.vertex[z]!
+    if (list.large[x] && !list.large[y] && !list.large[z] && (!allowEdge || (list.sourceSwitch[x] ? allowEdge(vz, vx) : allowEdge(vx, vz)))) {
       if (vx === vz) throw new Error(`stAugment: saturating edge would be a loop at ${vx}`)
       const e = list.sourceSwitch[x] ? rot.addEdge(vz, vx) : rot.addEdge(vx, vz)
       rot.placeInAngle(e, vz, list.dart[z]!)
@@ -344,9 +359,12 @@ function aliveNodes(list: SwitchList): number[] {
  * The bottom run (source-switch L's) and top run (sink-switch L's) of a saturated outer face, each
  * in walk order starting after the other run, as [vertex, angle dart] pairs.
  */
-function outerChains(list: SwitchList, alive: number[], f: number): [Array<[number, number]>, Array<[number, number]>] {
+function outerChains(list: SwitchList, alive: number[], f: number, quiet: boolean): [Array<[number, number]>, Array<[number, number]>] | undefined {
   const k = alive.length
   const bad = () => new Error(`stAugment: outer face ${f} does not split into a bottom and a top run`)
+  // A hook may have left an L, S, S triple unsaturated: two S's in a row would leave a face with two
+  // source (or sink) switches once s and t are joined.
+  if (quiet && alive.some((a, i) => !list.large[a] && !list.large[alive[(i + 1) % k]!])) return undefined
   // The first bottom L: a source-switch L right after a sink-switch L.
   let startPos = -1
   for (let i = 0; i < k; i++) {
@@ -357,7 +375,10 @@ function outerChains(list: SwitchList, alive: number[], f: number): [Array<[numb
       break
     }
   }
-  if (startPos === -1) throw bad()
+  if (startPos === -1) {
+    if (quiet) return undefined
+    throw bad()
+  }
   const bottom: Array<[number, number]> = []
   const top: Array<[number, number]> = []
   let inTop = false
@@ -365,7 +386,10 @@ function outerChains(list: SwitchList, alive: number[], f: number): [Array<[numb
     const a = alive[(startPos + j) % k]!
     if (!list.large[a]) continue
     if (list.sourceSwitch[a]) {
-      if (inTop) throw bad()
+      if (inTop) {
+        if (quiet) return undefined
+        throw bad()
+      }
       bottom.push([list.vertex[a]!, list.dart[a]!])
     } else {
       inTop = true
