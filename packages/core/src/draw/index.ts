@@ -1,2 +1,2 @@
-export type {DrawSettings, Drawing, DrawResult} from './draw-diagram.ts'
-export {drawDiagram} from './draw-diagram.ts'
+export type {DrawSettings, Drawing, DrawResult, DrawnEdgeLabel, DrawnTier} from './draw-diagram.ts'
+export {drawDiagram, EDGE_LABEL_BOX, TIER_CAPTION_BOX} from './draw-diagram.ts'

@@ -10,3 +10,6 @@ export type {
 export {defaultSpacing} from './types.ts'
 export {layoutUpward} from './layout-upward.ts'
 export {layoutStats, countCrossings, type LayoutStats} from './stats.ts'
+export {layoutLevels, type LevelLayout, type LevelLayoutInput} from './level-layout.ts'
+export {layoutTiers, type PlacedRect, type TierBand, type TierLayout, type TierLayoutInput} from './tier-layout.ts'
+export {joinEdgeLabels, type EdgeLabelBox, type JoinedLayout} from './edge-labels.ts'
