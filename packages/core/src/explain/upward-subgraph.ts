@@ -15,6 +15,15 @@
  */
 import {createDigraph, type Digraph} from '../graph/digraph.ts'
 import {testUpwardPlanarity, type UpwardBudget} from '../upward/index.ts'
+import type {UpwardEmbedding} from '../upward/upward-embedding.ts'
+
+/**
+ * An extra condition on a candidate subgraph that the exact test found upward planar: `ids` are its
+ * edges (edge i of `sub` is edge ids[i] of g), `upward` the embedding the test found. The fallback
+ * drawing uses it to keep only subgraphs whose st-augmentation leaves room for the dropped edges.
+ * With such a condition the result is maximal only with respect to test-and-condition.
+ */
+export type SubgraphCondition = (ids: readonly number[], sub: Digraph, upward: UpwardEmbedding) => boolean
 
 export interface UpwardSubgraph {
   /** Edge ids left out, ascending. */
@@ -25,8 +34,8 @@ export interface UpwardSubgraph {
   exact: boolean
 }
 
-/** g must be acyclic. `order` lists every edge id once (default: ascending). */
-export function maximalUpwardSubgraph(g: Digraph, budget?: Readonly<UpwardBudget>, order?: readonly number[]): UpwardSubgraph {
+/** g must be acyclic. `order` lists every edge id once (default: ascending); see SubgraphCondition. */
+export function maximalUpwardSubgraph(g: Digraph, budget?: Readonly<UpwardBudget>, order?: readonly number[], condition?: SubgraphCondition): UpwardSubgraph {
   const now = budget?.now ?? (() => performance.now())
   const deadline = now() + (budget?.maxMillis ?? 3000)
   const sequence = order ?? [...Array(g.edgeCount).keys()]
@@ -39,7 +48,8 @@ export function maximalUpwardSubgraph(g: Digraph, budget?: Readonly<UpwardBudget
     const ids = [...kept, ...extra]
     const sub = createDigraph(g.vertexCount, ids.map((e) => [g.tail[e]!, g.head[e]!] as const))
     const r = testUpwardPlanarity(sub, {maxMillis: Math.max(0, deadline - now()), now})
-    return r.status === 'upward' ? 'yes' : r.status === 'not-upward' ? 'no' : 'undecided'
+    if (r.status === 'upward') return !condition || condition(ids, sub, r.upward) ? 'yes' : 'no'
+    return r.status === 'not-upward' ? 'no' : 'undecided'
   }
   // Work list of chunks, earliest first.
   const stack: number[][] = [[...sequence]]

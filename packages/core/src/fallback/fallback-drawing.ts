@@ -26,7 +26,7 @@ import {labelBox, type LabelBoxOptions} from '../measure/index.ts'
 import type {Flow, ParsedDiagram} from '../parse/index.ts'
 import {testUpwardPlanarity, type UpwardBudget} from '../upward/index.ts'
 import {feedbackArcSet} from '../explain/feedback-arc-set.ts'
-import {maximalUpwardSubgraph} from '../explain/upward-subgraph.ts'
+import {maximalUpwardSubgraph, type SubgraphCondition} from '../explain/upward-subgraph.ts'
 import {insertEdge, type EditableEmbedding} from './insert-edges.ts'
 
 export type EdgeMark = 'inserted' | 'reversed' | 'reversed-inserted'
@@ -118,19 +118,12 @@ function drawWithOrder(
   const fas = [...flipped]
   const from = (e: number): number => (flipped.has(e) ? g.head[e]! : g.tail[e]!)
   const to = (e: number): number => (flipped.has(e) ? g.tail[e]! : g.head[e]!)
-  const sub = maximalUpwardSubgraph(acyclic, {maxMillis: Math.max(0, deadline - now()), now}, edgeOrder)
+  const feasible = feasibility(acyclic)
+  const sub = maximalUpwardSubgraph(acyclic, {maxMillis: Math.max(0, deadline - now()), now}, edgeOrder, feasible.condition)
   const droppedSet = new Set(sub.dropped.map((i) => drawable[i]!))
-  const kept = drawable.filter((e) => !droppedSet.has(e))
   const dropped = drawable.filter((e) => droppedSet.has(e))
-  // Each dropped edge (u, v) leaves a stub u -> x (x a new sink) and v a stub y -> v (y a new source)
-  // in the subgraph that is augmented: then u is never the top of the st-digraph nor v its bottom,
-  // which would force v below u. A pendant edge keeps a graph upward planar (it can always be drawn as a
-  // short upward stub), so the test below still says yes. The stubs are augmentation, never drawn.
-  const stubs: Array<[number, number]> = dropped.flatMap((e, i): Array<[number, number]> => [[from(e), n + 2 * i], [n + 2 * i + 1, to(e)]])
-  const keptGraph = createDigraph(n + 2 * dropped.length, [...kept.map((e) => [from(e), to(e)] as const), ...stubs])
-  const tested = testUpwardPlanarity(keptGraph, {maxMillis: Math.max(1000, deadline - now()), now})
-  if (tested.status !== 'upward') throw new Error('layoutFallback: the kept subgraph was tested upward planar and now is not')
-  const st = stAugment(tested.upward)
+  const {ids, st} = feasible.augmentationOf(drawable.length - sub.dropped.length) ?? rescue(acyclic, sub.dropped, deadline, now)
+  const kept = ids.map((i) => drawable[i]!)
 
   // 3. Editable copy of H with a new bottom s' -> s and top t -> t', which fix the outer face.
   const hg = st.graph
@@ -179,7 +172,6 @@ function drawWithOrder(
   const vcount = h.rotation.length
   const isAdded = new Uint8Array(vcount)
   for (const v of st.addedVertices) isAdded[v] = 1
-  for (let v = n; v < n + 2 * dropped.length; v++) isAdded[v] = 1
   isAdded[bottom] = isAdded[top] = 1
   const vmap = new Int32Array(vcount)
   let next = 0
@@ -239,6 +231,72 @@ function drawWithOrder(
   const layout: Layout = {flow: planarLayout.flow, width: planarLayout.width, height: planarLayout.height, nodes, edges}
   const reversed = drawable.filter((e) => marks[e] === 'reversed' || marks[e] === 'reversed-inserted')
   return {layout, marks, omitted, inserted: dropped, reversed, crossings, maximal: sub.maximal}
+}
+
+/**
+ * The feasibility condition of Chimani, Gutwenger, Mutzel & Wong (2010): a subgraph U of the acyclic
+ * graph G is drawn only if its upward embedding has an st-augmentation A with G ∪ A acyclic. Since
+ * U ⊆ G, G ∪ A is exactly U ∪ A plus the dropped edges, so every dropped edge (u, v) then has u below
+ * v in some topological numbering of the augmented st-digraph, and insert-edges.ts finds an upward
+ * route for it. The face saturation asks before each edge and skips one that would close a cycle
+ * with G and the augmentation so far (one depth-first search each, O(n + m)); a subgraph whose
+ * faces then cannot be saturated counts as not drawable, and maximalUpwardSubgraph drops edges until
+ * one can. The last accepted augmentation is kept: it belongs to the final subgraph.
+ */
+function feasibility(acyclic: Digraph): {
+  condition: SubgraphCondition
+  augmentationOf: (keptCount: number) => {ids: readonly number[]; st: StAugmentation} | undefined
+} {
+  const n = acyclic.vertexCount
+  let last: {ids: readonly number[]; st: StAugmentation} | undefined
+  const condition: SubgraphCondition = (ids, _sub, upward) => {
+    const extra: number[][] = Array.from({length: n}, () => [])
+    const seen = new Int32Array(n)
+    let stamp = 0
+    const reaches = (a: number, b: number): boolean => {
+      stamp++
+      const stack = [a]
+      seen[a] = stamp
+      while (stack.length > 0) {
+        const x = stack.pop()!
+        if (x === b) return true
+        const visit = (y: number): void => {
+          if (seen[y] !== stamp) {
+            seen[y] = stamp
+            stack.push(y)
+          }
+        }
+        for (let j = acyclic.outStart[x]!; j < acyclic.outStart[x + 1]!; j++) visit(acyclic.head[acyclic.outEdges[j]!]!)
+        for (const y of extra[x]!) visit(y)
+      }
+      return false
+    }
+    const st = stAugment(upward, {
+      allowEdge: (t, h) => {
+        if (t === h || reaches(h, t)) return false
+        extra[t]!.push(h)
+        return true
+      }
+    })
+    if (!st) return false
+    last = {ids: [...ids], st}
+    return true
+  }
+  return {condition, augmentationOf: (keptCount) => (last && last.ids.length === keptCount ? last : undefined)}
+}
+
+/**
+ * When no subgraph passed the condition (the budget ran out before any test did), the kept edges are
+ * augmented without it; insertion then draws an edge against the flow where the augmentation forces
+ * it (marked).
+ */
+function rescue(acyclic: Digraph, droppedIds: readonly number[], deadline: number, now: () => number): {ids: readonly number[]; st: StAugmentation} {
+  const out = new Set(droppedIds)
+  const ids = [...Array(acyclic.edgeCount).keys()].filter((i) => !out.has(i))
+  const sub = createDigraph(acyclic.vertexCount, ids.map((i) => [acyclic.tail[i]!, acyclic.head[i]!] as const))
+  const tested = testUpwardPlanarity(sub, {maxMillis: Math.max(1000, deadline - now()), now})
+  if (tested.status !== 'upward') throw new Error('layoutFallback: the kept subgraph was tested upward planar and now is not')
+  return {ids, st: stAugment(tested.upward)}
 }
 
 /** Position of each vertex in a topological order (Kahn's algorithm, smallest id first among ties). */
