@@ -48,6 +48,32 @@ describe('upright check on worker threads', () => {
     expect(new Set(files).size).toBe(30)
   })
 
+  it('--timing accounts for every file and diagram once, per thread, with CPU time from the thread itself', async () => {
+    for (const jobs of ['1', '2']) {
+      const run = await cli(['check', '--no-cache', '--timing', '--jobs', jobs, '--format', 'json', '.'], dir)
+      const {timing} = JSON.parse(run.stderr) as {
+        timing: {jobs: number; phasesMs: Record<string, number>; processCpuSeconds: number; threads: Array<{thread: number; files: number; diagrams: number; busyMs: number; cpuSeconds?: number}>}
+      }
+      expect(timing.jobs).toBe(Number(jobs))
+      expect(timing.threads).toHaveLength(Number(jobs))
+      expect(timing.threads.reduce((n, t) => n + t.files, 0)).toBe(tree.files.length)
+      expect(timing.threads.reduce((n, t) => n + t.diagrams, 0)).toBe(tree.diagrams)
+      for (const t of timing.threads) {
+        expect(t.busyMs).toBeGreaterThan(0)
+        expect(t.busyMs).toBeLessThanOrEqual(timing.phasesMs['check']! + 1)
+        // Linux: each thread's own counter, at most what the whole process used.
+        if (process.platform === 'linux') {
+          expect(t.cpuSeconds).toBeGreaterThan(0)
+          expect(t.cpuSeconds).toBeLessThanOrEqual(timing.processCpuSeconds)
+        }
+      }
+      if (jobs === '2') expect(new Set(timing.threads.map((t) => t.thread)).has(threadId)).toBe(false)
+    }
+    const text = await cli(['check', '--no-cache', '--timing', '--jobs', '2', '.'], dir)
+    expect(text.stderr).toMatch(/^timing: startup [\d.]+ s, collect [\d.]+ s, check [\d.]+ s, finish [\d.]+ s; CPU [\d.]+ s in all/)
+    expect(text.stderr.match(/worker thread \d+: \d+ files/g)).toHaveLength(2)
+  })
+
   it('rejects --jobs that is not a whole number from 1', async () => {
     for (const bad of ['0', '-1', '1.5', 'many']) expect((await cli(['check', '--jobs', bad, '.'], dir)).code).toBe(2)
   })

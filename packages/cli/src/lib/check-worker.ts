@@ -3,23 +3,30 @@
  * single-threaded path, through its own view of the shared cache folder (writes are atomic, so
  * threads and processes can share it).
  */
-import {openOutcomeCache} from 'remark-upright/check'
+import {threadId} from 'node:worker_threads'
 import {checkFile, type CheckFilesOptions} from './check-files.ts'
-import {openFileCache} from './file-cache.ts'
 import {toPortable, type PortableReport} from './portable-report.ts'
+import {threadCpuSeconds} from './thread-timing.ts'
 
 export interface CheckTask {
   /** A run of consecutive files (several per message, to keep messaging cheap). */
   files: string[]
-  options: Omit<CheckFilesOptions, 'cache' | 'fileCache'>
-  /** The cache setting, resolved by the main thread: a folder, memory only, or none. */
-  cache: {dir: string} | boolean
+  /** The cache setting included, as the main thread resolved it: a folder, memory only, or none. */
+  options: CheckFilesOptions
 }
 
-export default async function checkTask(task: CheckTask): Promise<PortableReport[]> {
-  const cache = openOutcomeCache(task.cache, task.options.base)
-  const fileCache = openFileCache(task.cache, task.options.base)
+export interface CheckTaskResult {
+  reports: PortableReport[]
+  thread: number
+  /** Wall milliseconds this task took. */
+  busyMs: number
+  /** CPU seconds this thread has used so far (start-up included). */
+  cpuSeconds: number | undefined
+}
+
+export default async function checkTask(task: CheckTask): Promise<CheckTaskResult> {
+  const start = performance.now()
   const reports: PortableReport[] = []
-  for (const file of task.files) reports.push(toPortable(await checkFile(file, {...task.options, cache, fileCache})))
-  return reports
+  for (const file of task.files) reports.push(toPortable(await checkFile(file, task.options)))
+  return {reports, thread: threadId, busyMs: performance.now() - start, cpuSeconds: threadCpuSeconds()}
 }

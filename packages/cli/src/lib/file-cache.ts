@@ -5,29 +5,50 @@
  * with the same guarantees: keyed by everything the results depend on (text, default flow, budget,
  * limits and the producing code), checksummed, shape-checked on reading, and never holding an
  * `undecided` diagram.
+ *
+ * Opening it loads only @upright/cache, not the Markdown parser or the checker: a run where every
+ * file hits reads and hashes text and nothing more (check-files.ts loads the rest on a miss).
  */
-import {cacheKey, createResultCache, type ResultCache} from '@upright/cache'
+import {createRequire} from 'node:module'
+import {cacheKey, createResultCache, sourceFingerprint, type ResultCache} from '@upright/cache'
 import {defaultBudgetMillis, resolveLimits, type Flow, type Limits} from '@upright/core'
-import {openOutcomeCache, type CacheSetting} from 'remark-upright/check'
 import type {PortableResult} from './portable-report.ts'
 
 export type FileCache = ResultCache<PortableResult[]> & {readonly tool: string}
+
+/** How `upright check` caches, as the main thread resolved it: a folder, memory only, or none. */
+export type CacheChoice = {dir: string} | boolean
 
 /** Bump when PortableResult changes shape. */
 const fileFormat = 1
 const open = new Map<string, FileCache>()
 
-export function openFileCache(setting: {dir: string} | boolean, cwd: string): FileCache | undefined {
-  const outcomes = openOutcomeCache(setting as CacheSetting, cwd)
-  if (!outcomes) return undefined
-  const dir = outcomes.disk?.dir
+export function openFileCache(setting: CacheChoice | undefined): FileCache | undefined {
+  if (setting === undefined || setting === false) return undefined
+  const dir = setting === true ? undefined : setting.dir
   const id = dir ?? ''
   let cache = open.get(id)
   if (!cache) {
-    cache = Object.assign(createResultCache<PortableResult[]>({dir, decode: decodeResults}), {tool: outcomes.tool})
+    // In memory the producing code cannot change during the process; on disk it is named.
+    const tool = dir === undefined ? 'in-process' : toolFingerprint()
+    cache = Object.assign(createResultCache<PortableResult[]>({dir, decode: decodeResults}), {tool})
     open.set(id, cache)
   }
   return cache
+}
+
+let tool: string | undefined
+
+/**
+ * The code the results come from: this package, the Markdown side of remark-upright and the core
+ * (versions, and hashes of their sources when run from them). Resolved, not imported.
+ */
+function toolFingerprint(): string {
+  if (tool === undefined) {
+    const require = createRequire(import.meta.url)
+    tool = sourceFingerprint([import.meta.url, require.resolve('remark-upright/check'), require.resolve('@upright/core')])
+  }
+  return tool
 }
 
 export function fileKey(

@@ -10,8 +10,11 @@ import {checkFiles} from './check-pool.ts'
 import {parseShard, selectShard, type Shard} from './shard.ts'
 import {createProgressBar} from './progress-bar.ts'
 import {findCacheDir} from '@upright/cache'
-import {openOutcomeCache} from 'remark-upright/check'
+import {openFileCache} from './file-cache.ts'
+import {threadCpuSeconds, type ThreadTiming} from './thread-timing.ts'
 import {availableParallelism} from 'node:os'
+import {cpuUsage} from 'node:process'
+import {threadId} from 'node:worker_threads'
 import {toJsonReport} from './format-json.ts'
 import {formatText, summarize} from './format-text.ts'
 import {writeFile} from 'node:fs/promises'
@@ -50,6 +53,7 @@ export async function run(argv: readonly string[], io: Io): Promise<number> {
     .option('--shard <i/n>', 'check only the i-th of n disjoint slices of the files (for splitting across CI jobs)', parseShardOption)
     .option('--cache-dir <dir>', 'cache folder (default: node_modules/.cache/upright of the nearest package.json)')
     .option('--no-cache', 'check every diagram afresh, without reading or writing the cache')
+    .option('--timing', 'print to standard error where the time went: per thread, files, busy time and CPU time')
     .action(async (paths: string[], opts: CheckOpts) => {
       exit = await check(paths, opts, io)
     })
@@ -208,6 +212,7 @@ interface CheckOpts {
   shard?: Shard
   cacheDir?: string
   cache: boolean
+  timing?: boolean
 }
 
 function parseShardOption(value: string): Shard {
@@ -220,8 +225,10 @@ function parseShardOption(value: string): Shard {
 const minFilesForWorkers = 64
 
 async function check(paths: string[], opts: CheckOpts, io: Io): Promise<number> {
+  const started = performance.now()
   const base = baseDirectory(io)
   const collected = await collectFiles(paths, base)
+  const collectedAt = performance.now()
   for (const p of collected.problems) io.stderr.write(`upright: cannot read ${p.path}: ${p.reason}\n`)
   const files = opts.shard ? selectShard(collected.files, base, opts.shard) : collected.files
   // No package.json above the base and no --cache-dir: keep results in memory rather than pick a folder.
@@ -229,14 +236,16 @@ async function check(paths: string[], opts: CheckOpts, io: Io): Promise<number> 
   const cache = opts.cache ? (dir !== undefined ? {dir} : true) : false
   const jobs = opts.jobs ?? (files.length >= minFilesForWorkers ? availableParallelism() : 1)
   const bar = Boolean(io.stderr.isTTY) && files.length > 20 ? createProgressBar(io.stderr, files.length, 'checking') : undefined
+  const timing = opts.timing ? new Map<number, ThreadTiming>() : undefined
   const reports: FileReport[] = await checkFiles(
     files,
     {base, flow: opts.flow, title: opts.title, budget: opts.budget, limits: opts.limits},
-    {jobs, cache, onProgress: bar ? (done) => bar.tick(done) : undefined}
+    {jobs, cache, onProgress: bar ? (done) => bar.tick(done) : undefined, timing}
   )
   bar?.clear()
+  const checkedAt = performance.now()
   // Keep the folder within its bound (workers only add to it).
-  if (dir !== undefined) openOutcomeCache({dir}, base)?.prune()
+  if (dir !== undefined) openFileCache({dir})?.prune()
 
   if (opts.format === 'json') {
     io.stdout.write(JSON.stringify(toJsonReport(reports), null, 2) + '\n')
@@ -244,7 +253,34 @@ async function check(paths: string[], opts: CheckOpts, io: Io): Promise<number> 
     const colour = Boolean(io.stdout.isTTY) && io.env['NO_COLOR'] === undefined
     io.stdout.write(formatText(reports, {colour}))
   }
+  if (timing) {
+    const phases = {startup: started, collect: collectedAt - started, check: checkedAt - collectedAt, finish: performance.now() - checkedAt}
+    io.stderr.write(formatTiming(jobs, phases, timing, opts.format))
+  }
   const summary = summarize(reports)
   if (collected.problems.length > 0 || summary.unreadable > 0) return exitCodes.usage
   return summary.failed > 0 ? exitCodes.failed : exitCodes.ok
+}
+
+/**
+ * `--timing`: wall milliseconds by phase (startup counts from the process start), then per thread its
+ * files, busy time and CPU time, and the process's CPU time (every thread, the runtime's own helpers
+ * included). JSON on one line with `--format json`, for scripts such as bench/site.ts.
+ */
+function formatTiming(jobs: number, phases: Record<'startup' | 'collect' | 'check' | 'finish', number>, timing: Map<number, ThreadTiming>, format: 'text' | 'json'): string {
+  const usage = cpuUsage()
+  const processCpuSeconds = (usage.user + usage.system) / 1e6
+  const mainCpuSeconds = threadCpuSeconds()
+  const threads = [...timing.values()].sort((a, b) => a.thread - b.thread)
+  if (format === 'json') return JSON.stringify({timing: {jobs, phasesMs: phases, processCpuSeconds, mainCpuSeconds, threads}}) + '\n'
+  const s = (ms: number) => `${(ms / 1000).toFixed(2)} s`
+  const cpu = (x: number | undefined) => (x === undefined ? '?' : `${x.toFixed(2)} s`)
+  const lines = [
+    `timing: startup ${s(phases.startup)}, collect ${s(phases.collect)}, check ${s(phases.check)}, finish ${s(phases.finish)}; ` +
+      `CPU ${processCpuSeconds.toFixed(2)} s in all, main thread ${cpu(mainCpuSeconds)}`
+  ]
+  for (const t of threads) {
+    lines.push(`  ${t.thread === threadId ? 'main thread' : `worker thread ${t.thread}`}: ${t.files} files, ${t.diagrams} diagrams, busy ${s(t.busyMs)}, CPU ${cpu(t.cpuSeconds)}`)
+  }
+  return lines.join('\n') + '\n'
 }
