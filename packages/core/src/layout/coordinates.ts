@@ -16,6 +16,10 @@
  * raise the energy, and every intermediate state keeps the orders and separations, so the number of
  * sweeps trades quality for time only, never correctness.
  *
+ * The start is the caller's guess of each object's place across the flow, shrunk to the widest
+ * layer's packed width when it is wider (see below). Starting compact matters for the area: before
+ * that, the width of large drawings was mostly an echo of the start's.
+ *
  * Time: O(objects + segments) per sweep, SWEEPS sweeps.
  */
 
@@ -43,6 +47,7 @@ export function separation(lg: LayeredGraph, a: number, b: number, nodeGap: numb
   return lg.half[a]! + lg.half[b]! + gap
 }
 
+/** `initial`: a guess of each object's place across the flow (shrunk here if wider than needed). */
 export function assignCoordinates(
   lg: LayeredGraph,
   initial: Float64Array,
@@ -135,8 +140,25 @@ export function assignCoordinates(
     }
   }
 
-  // Start: project the initial guess onto the constraints (weights ANCHOR only, so just the guess).
-  for (let o = 0; o < count; o++) x[o] = initial[o]!
+  // Start: the initial guess, shrunk if it spans more than the widest layer needs, then projected
+  // onto the constraints (weights ANCHOR only, so just the guess). The sweeps move objects only by
+  // local averaging, so a spread-out start stays spread out for many sweeps (the energy does not
+  // depend on a common shift, and pulling a wide drawing together takes a number of sweeps that
+  // grows with its width); starting at most as wide as the widest layer lets the sweeps straighten
+  // edges instead, and the separations widen whatever layer needs it.
+  let need = 0
+  for (const layer of lg.layers) {
+    const k = layer.length
+    if (k > 0) need = Math.max(need, offsetOf[layer[k - 1]!]! + lg.half[layer[0]!]! + lg.half[layer[k - 1]!]!)
+  }
+  let lo = Infinity
+  let hi = -Infinity
+  for (let o = 0; o < count; o++) {
+    lo = Math.min(lo, initial[o]!)
+    hi = Math.max(hi, initial[o]!)
+  }
+  const scale = hi - lo > need ? need / (hi - lo) : 1
+  for (let o = 0; o < count; o++) x[o] = scale === 1 ? initial[o]! : (initial[o]! - lo) * scale
   for (const layer of lg.layers) solveLayer(layer, false)
 
   const L = lg.layers.length
