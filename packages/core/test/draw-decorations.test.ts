@@ -17,7 +17,7 @@ const flows: Flow[] = ['up', 'down', 'left', 'right']
 
 function drawOf(text: string, flow: Flow): {check: DiagramCheck; drawing: Drawing} {
   const check = checkDiagram(text)
-  expect(check.status, check.diagnostics.map((d) => d.message).join('\n')).toBe('upward')
+  expect(check.status, check.diagnostics.map((d) => d.reason).join('\n')).toBe('upward')
   const drawn = drawDiagram(check, {flow})
   if (!drawn.ok) throw new Error('not drawn')
   return {check, drawing: drawn.drawing}

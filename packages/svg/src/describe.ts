@@ -15,6 +15,17 @@ export interface DescribeInput {
   edges: ReadonlyArray<readonly [number, number]>
   labels: ReadonlyArray<string>
   ids?: ReadonlyArray<string> | undefined
+  /** Per entry of `edges`: the edge's label, said after its head. */
+  edgeLabels?: ReadonlyArray<string | undefined> | undefined
+  /** Tiers in declared order (from where edges start), each with its caption and vertices. */
+  tiers?: ReadonlyArray<{text: string; vertices: ReadonlyArray<number>}> | undefined
+}
+
+const TIER_START: Record<FlowWord, string> = {
+  up: 'from the bottom',
+  down: 'from the top',
+  left: 'from the right',
+  right: 'from the left'
 }
 
 const DIRECTION: Record<FlowWord, string> = {
@@ -53,20 +64,26 @@ export function describeHierarchy(input: DescribeInput): string {
     return (uses.get(text) ?? 0) > 1 && id !== undefined && id !== text ? `${text} (${id})` : text
   }
 
-  const targets = new Map<number, number[]>()
-  for (const [tail, head] of input.edges) {
+  const targets = new Map<number, string[]>()
+  input.edges.forEach(([tail, head], i) => {
+    const label = input.edgeLabels?.[i] === undefined ? '' : spokenLabel(input.edgeLabels[i]!)
+    const said = label ? `${name(head)} (edge “${label}”)` : name(head)
     const list = targets.get(tail)
-    if (list) list.push(head)
-    else targets.set(tail, [head])
-  }
+    if (list) list.push(said)
+    else targets.set(tail, [said])
+  })
 
   const sentences = [
     `${plural(input.vertices.length, 'vertex', 'vertices')} and ${plural(input.edges.length, 'edge', 'edges')}.`,
     DIRECTION[input.flow]
   ]
+  if (input.tiers && input.tiers.length > 0) {
+    const rows = input.tiers.map((tier) => `${spokenLabel(tier.text)}: ${tier.vertices.length > 0 ? list(tier.vertices.map(name)) : 'nothing'}`)
+    sentences.push(`${plural(input.tiers.length, 'tier', 'tiers')}, ${TIER_START[input.flow]}: ${rows.join('; ')}.`)
+  }
   for (const v of input.vertices) {
     const heads = targets.get(v)
-    sentences.push(heads ? `${name(v)} points to ${list(heads.map(name))}.` : `${name(v)} points to nothing.`)
+    sentences.push(heads ? `${name(v)} points to ${list(heads)}.` : `${name(v)} points to nothing.`)
   }
   return sentences.join(' ')
 }

@@ -1,5 +1,6 @@
 export type {Options, RenderInput, RenderLayout, RenderResult} from './render-svg.ts'
-export {renderSvg, toHast} from './render-svg.ts'
+export {renderSvg, toHast, DECORATION_CLASS} from './render-svg.ts'
+export type {RenderEdgeLabel, RenderTier} from './render-svg.ts'
 export type {Palette, Theme} from './theme.ts'
 export {CLASS, DARK_PALETTE, LIGHT_PALETTE} from './theme.ts'
 export type {EdgeStyle} from './geometry.ts'

@@ -13,7 +13,7 @@ import {fromHtml} from 'hast-util-from-html'
 import {toHtml} from 'hast-util-to-html'
 import {s} from 'hastscript'
 import {optimize, type Config} from 'svgo/browser'
-import {FONT_STACK, checkLinkTarget, labelBox, toneDescriptions, type LabelBoxOptions, type Tone} from '@upright/core'
+import {EDGE_LABEL_BOX, FONT_STACK, TIER_CAPTION_BOX, checkLinkTarget, labelBox, toneDescriptions, type LabelBoxOptions, type Tone} from '@upright/core'
 import {describeHierarchy, spokenLabel, type FlowWord} from './describe.ts'
 import {DEFAULT_EDGE_STYLE, edgeShape, type EdgeStyle} from './geometry.ts'
 import {hashText} from './hash.ts'
@@ -55,7 +55,51 @@ export interface RenderInput {
   tones?: ReadonlyArray<Tone | undefined> | undefined
   /** Per vertex: a link target (http(s), relative or `#fragment`); the box becomes a link. */
   links?: ReadonlyArray<string | undefined> | undefined
+  /**
+   * Labels on edges: the box (centre and size, layout coordinates) the layout kept clear for each, on
+   * its edge's line, and its text. Drawn as a pill over the line; said in <desc> after the edge's head.
+   */
+  edgeLabels?: ReadonlyArray<RenderEdgeLabel> | undefined
+  /**
+   * Tiers in declared order: a quiet band behind the tier's row and a caption in the box given for it
+   * (layout coordinates, top-left corner and size); said in <desc> with their vertices.
+   */
+  tiers?: ReadonlyArray<RenderTier> | undefined
 }
+
+export interface RenderEdgeLabel {
+  edge: number
+  x: number
+  y: number
+  width: number
+  height: number
+  text: string
+}
+
+export interface RenderTier {
+  band: {x: number; y: number; width: number; height: number}
+  caption: {x: number; y: number; width: number; height: number}
+  text: string
+  vertices: ReadonlyArray<number>
+}
+
+/** Classes of the tier bands, their captions and the edge labels: public hooks for site CSS. */
+export const DECORATION_CLASS = {
+  tiers: 'upright-tiers',
+  tierCaptions: 'upright-tier-captions',
+  edgeLabels: 'upright-edge-labels',
+  edgeLabelText: 'upright-edge-label-text'
+} as const
+
+/**
+ * Default colours of tier bands and edge labels, light and dark; sites override them through
+ * --upright-tier-fill, --upright-tier-text, --upright-edge-label-fill, --upright-edge-label-stroke and
+ * --upright-edge-label-text.
+ */
+const DECORATION = {
+  light: {tierFill: '#f1eee3', tierText: '#5d6b63', labelStroke: '#9fb0b5', labelText: '#38515a'},
+  dark: {tierFill: '#1b2427', tierText: '#9db1aa', labelStroke: '#5f747b', labelText: '#c6d6d8'}
+} as const
 
 /** Classes and default colours of the warning style (fallback drawings only). */
 const MARKED = {lines: 'upright-marked', arrows: 'upright-marked-arrows', note: 'upright-note', light: '#b4541e', dark: '#f0a567'} as const
@@ -141,7 +185,8 @@ function fingerprint(input: RenderInput, settings: Omit<Settings, 'prefix'>): st
     input.description ?? null,
     settings,
     // Only when present, so the hash of an ordinary drawing is what it always was.
-    ...(input.marked || input.note !== undefined ? [input.marked ?? null, input.note ?? null] : [])
+    ...(input.marked || input.note !== undefined ? [input.marked ?? null, input.note ?? null] : []),
+    ...(input.edgeLabels?.length || input.tiers?.length ? [input.edgeLabels ?? null, input.tiers ?? null] : [])
   ])
 }
 
@@ -161,10 +206,13 @@ function buildTree(input: RenderInput, settings: Settings): Root {
   const pairs = edges.map((e) => [graph.tail[e.edge]!, graph.head[e.edge]!] as const)
 
   const title = input.title ?? `Diagram of ${nodes.length} ${nodes.length === 1 ? 'vertex' : 'vertices'} and ${edges.length} ${edges.length === 1 ? 'edge' : 'edges'}`
+  const labelOf = new Map((input.edgeLabels ?? []).map((label) => [label.edge, label.text]))
   const generated = describeHierarchy({
     flow: layout.flow,
     vertices: nodes.map((n) => n.vertex),
     edges: pairs,
+    edgeLabels: labelOf.size > 0 ? edges.map((e) => labelOf.get(e.edge)) : undefined,
+    tiers: input.tiers,
     // Tones are said in words beside the label, so the description never relies on colour.
     labels: input.tones ? input.labels.map((l, v) => (input.tones![v] ? `${l} (${toneDescriptions[input.tones![v]!]})` : l)) : input.labels,
     ids: input.ids
@@ -257,7 +305,7 @@ function buildTree(input: RenderInput, settings: Settings): Root {
     [
       s('title', {id: `${prefix}-title`}, title),
       s('desc', {id: `${prefix}-desc`}, desc),
-      s('style', stylesheet(prefix, settings.theme, `${f(fontSize)}px ${FONT_STACK}`) + markedRules + toneAndLinkRules(prefix, input)),
+      s('style', stylesheet(prefix, settings.theme, `${f(fontSize)}px ${FONT_STACK}`) + markedRules + toneAndLinkRules(prefix, input) + decorationRules(prefix, input, settings.theme.scheme)),
       s('rect', {
         className: [CLASS.background],
         x: f(-margin),
@@ -267,9 +315,11 @@ function buildTree(input: RenderInput, settings: Settings): Root {
         rx: f(Math.min(8, margin)),
         fill: light.background
       }),
+      tierBands(input, settings),
       lineData
         ? s('path', {className: [CLASS.lines], d: lineData, fill: 'none', stroke: light.edgeStroke, strokeWidth: EDGE_STROKE_WIDTH, strokeLinecap: 'round', strokeLinejoin: 'round'})
         : null,
+      edgeLabelPills(input, settings),
       s('g', {className: [CLASS.boxes], fill: light.nodeFill, stroke: light.nodeStroke, strokeWidth: NODE_STROKE_WIDTH}, boxes),
       s('g', {className: [CLASS.labels], fill: light.nodeText, fontFamily: FONT_STACK, fontSize: f(fontSize), textAnchor: 'middle'}, labels),
       arrowData ? s('path', {className: [CLASS.arrows], d: arrowData, fill: light.arrowFill}) : null,
@@ -370,5 +420,89 @@ function toneAndLinkRules(prefix: string, input: RenderInput): string {
   if (input.links?.some((l) => l !== undefined)) {
     css += `${id} .upright-links a{cursor:pointer}${id} .upright-links a:focus{outline:none}${id} .upright-links a:focus rect,${id} .upright-links a:hover rect{stroke:var(--upright-link-focus,var(--upright-node-stroke,var(--_ns)));stroke-width:2.5px}`
   }
+  return css
+}
+
+/** Lines of `text` placed in the box `rect` (top-left corner and size) with `options`, centred. */
+function textInBox(text: string, cx: number, cy: number, options: Readonly<LabelBoxOptions>, f: (v: number) => string, className?: string): Element | null {
+  const box = labelBox(text, options)
+  const spans: ElementContent[] = []
+  box.lines.forEach((line, i) => {
+    if (line !== '') spans.push(s('tspan', {x: f(cx), y: f(cy + box.baselines[i]!)}, line))
+  })
+  const cls = className ? [className] : undefined
+  if (spans.length === 0) return null
+  if (spans.length === 1) {
+    const only = spans[0] as Element
+    return s('text', {className: cls, x: only.properties['x'], y: only.properties['y']}, only.children)
+  }
+  return s('text', {className: cls}, spans)
+}
+
+/** Tier bands behind everything, and their captions: one group, bands first. */
+function tierBands(input: RenderInput, settings: Settings): Element | null {
+  const tiers = input.tiers ?? []
+  if (tiers.length === 0) return null
+  const f = (v: number): string => formatNumber(v, settings.precision)
+  const light = settings.theme.scheme === 'dark' ? DECORATION.dark : DECORATION.light
+  const bands = tiers.map((tier) => s('rect', {x: f(tier.band.x), y: f(tier.band.y), width: f(tier.band.width), height: f(tier.band.height), rx: f(Math.min(6, tier.band.height / 2, tier.band.width / 2))}))
+  const captions = tiers.flatMap((tier) => {
+    const text = textInBox(tier.text, tier.caption.x + tier.caption.width / 2, tier.caption.y + tier.caption.height / 2, TIER_CAPTION_BOX, f)
+    return text ? [text] : []
+  })
+  return s('g', {className: [DECORATION_CLASS.tiers], fill: light.tierFill}, [
+    ...bands,
+    s('g', {className: [DECORATION_CLASS.tierCaptions], fill: light.tierText, fontFamily: FONT_STACK, fontSize: f(TIER_CAPTION_BOX.fontSize!), textAnchor: 'middle'}, captions)
+  ])
+}
+
+/** Edge labels: a pill over the line in the box the layout kept free, and the text in it. */
+function edgeLabelPills(input: RenderInput, settings: Settings): Element | null {
+  const labels = [...(input.edgeLabels ?? [])].sort((a, b) => a.edge - b.edge)
+  if (labels.length === 0) return null
+  const f = (v: number): string => formatNumber(v, settings.precision)
+  const light = settings.theme.scheme === 'dark' ? DECORATION.dark : DECORATION.light
+  const background = settings.theme.scheme === 'dark' ? settings.theme.dark.background : settings.theme.light.background
+  const pills = labels.map((label) =>
+    s('rect', {x: f(label.x - label.width / 2), y: f(label.y - label.height / 2), width: f(label.width), height: f(label.height), rx: f(Math.min(label.width, label.height) / 2)})
+  )
+  const texts = labels.flatMap((label) => {
+    const text = textInBox(label.text, label.x, label.y, EDGE_LABEL_BOX, f)
+    return text ? [text] : []
+  })
+  return s('g', {className: [DECORATION_CLASS.edgeLabels], fill: background, stroke: light.labelStroke, strokeWidth: 1}, [
+    ...pills,
+    s('g', {className: [DECORATION_CLASS.edgeLabelText], fill: light.labelText, stroke: 'none', fontFamily: FONT_STACK, fontSize: f(EDGE_LABEL_BOX.fontSize!), textAnchor: 'middle'}, texts)
+  ])
+}
+
+/**
+ * Tier and edge-label rules, only when used: paints through public properties with our defaults
+ * (switched with the scheme), and the smaller font pinned by id like the labels' (see stylesheet).
+ */
+function decorationRules(prefix: string, input: RenderInput, scheme: 'auto' | 'light' | 'dark'): string {
+  const id = `#${prefix}`
+  const tiers = (input.tiers?.length ?? 0) > 0
+  const labels = (input.edgeLabels?.length ?? 0) > 0
+  if (!tiers && !labels) return ''
+  const paint = (p: (typeof DECORATION)[keyof typeof DECORATION]): string => {
+    let css = ''
+    if (tiers) {
+      css += `${id} .${DECORATION_CLASS.tiers}{fill:var(--upright-tier-fill,${p.tierFill})}`
+      css += `${id} .${DECORATION_CLASS.tierCaptions}{fill:var(--upright-tier-text,${p.tierText})}`
+    }
+    if (labels) {
+      css += `${id} .${DECORATION_CLASS.edgeLabels}{fill:var(--upright-edge-label-fill,var(--upright-background,var(--_bg)));stroke:var(--upright-edge-label-stroke,${p.labelStroke})}`
+      css += `${id} .${DECORATION_CLASS.edgeLabelText}{fill:var(--upright-edge-label-text,${p.labelText});stroke:none}`
+    }
+    return css
+  }
+  let css = paint(scheme === 'dark' ? DECORATION.dark : DECORATION.light)
+  if (scheme === 'auto') css += `@media (prefers-color-scheme:dark){${paint(DECORATION.dark)}}`
+  const fonts: string[] = []
+  if (tiers) fonts.push(`${id} .${DECORATION_CLASS.tierCaptions} text{font-size:${TIER_CAPTION_BOX.fontSize}px}`)
+  if (labels) fonts.push(`${id} .${DECORATION_CLASS.edgeLabelText} text{font-size:${EDGE_LABEL_BOX.fontSize}px}`)
+  css += fonts.join('')
+  css += `@media print{${id} .${DECORATION_CLASS.tiers}{fill:#f2f2f2}${id} .${DECORATION_CLASS.tierCaptions},${id} .${DECORATION_CLASS.edgeLabelText}{fill:#000}${id} .${DECORATION_CLASS.edgeLabels}{fill:#fff;stroke:#000}}`
   return css
 }

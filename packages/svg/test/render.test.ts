@@ -11,6 +11,7 @@ describe('public API', () => {
     expect(Object.keys(await import('@upright/svg')).sort()).toEqual([
       'CLASS',
       'DARK_PALETTE',
+      'DECORATION_CLASS',
       'DEFAULT_EDGE_STYLE',
       'DEFAULT_PRECISION',
       'LIGHT_PALETTE',

@@ -33,30 +33,40 @@ export async function drawFile(file: string, options: DrawFileOptions): Promise<
   return {ok: true, report: only, drawing: drawn.drawing, title: result.options.title}
 }
 
-/** The documented JSON shape: SVG coordinates, node x/y at the box centre, points tail → head. */
+/**
+ * The documented JSON shape: SVG coordinates, node x/y at the box centre, points tail → head. With
+ * edge labels, a labelled edge has `label` {text, x, y, width, height} (its box, centre and size; the
+ * points run through it); with tiers, `tiers` lists each tier {name, label, nodes, band, caption} in
+ * declared order, band and caption as {x, y, width, height} with x/y at the centre like nodes.
+ */
 export function layoutJson(drawing: Drawing, stats: boolean): Record<string, unknown> {
   const {layout, ids} = drawing
   const edgeEnds = edgeIds(drawing)
+  const labelOf = new Map(drawing.edgeLabels.map((l) => [l.edge, {text: l.text, x: l.x, y: l.y, width: l.width, height: l.height}]))
   const json: Record<string, unknown> = {
     flow: layout.flow,
     width: layout.width,
     height: layout.height,
     nodes: layout.nodes.map((n) => ({id: ids[n.vertex], x: n.x, y: n.y, width: n.width, height: n.height})),
-    edges: layout.edges.map((e) => ({from: edgeEnds[e.edge]![0], to: edgeEnds[e.edge]![1], points: e.points}))
+    edges: layout.edges.map((e) => ({from: edgeEnds[e.edge]![0], to: edgeEnds[e.edge]![1], points: e.points, ...(labelOf.has(e.edge) ? {label: labelOf.get(e.edge)} : {})}))
+  }
+  if (drawing.tiers.length > 0) {
+    const centred = (r: {x: number; y: number; width: number; height: number}): Record<string, number> => ({x: r.x + r.width / 2, y: r.y + r.height / 2, width: r.width, height: r.height})
+    json['tiers'] = drawing.tiers.map((t) => ({name: t.name, label: t.text, nodes: t.vertices.map((v) => ids[v]), band: centred(t.band), caption: centred(t.caption)}))
   }
   if (stats) json['stats'] = layoutStats(layout)
   return json
 }
 
 function edgeIds(drawing: Drawing): Array<[string, string]> {
-  const g = drawing.st.graph
+  const g = drawing.graph
   const out: Array<[string, string]> = []
   for (const e of drawing.layout.edges) out[e.edge] = [drawing.ids[g.tail[e.edge]!]!, drawing.ids[g.head[e.edge]!]!]
   return out
 }
 
 export function renderFileSvg(drawing: Drawing, title: string | undefined): string {
-  return renderSvg({layout: drawing.layout, graph: drawing.st.graph, labels: drawing.labels, ids: drawing.ids, tones: drawing.tones, links: drawing.links, title}).svg
+  return renderSvg({layout: drawing.layout, graph: drawing.graph, labels: drawing.labels, ids: drawing.ids, tones: drawing.tones, links: drawing.links, edgeLabels: drawing.edgeLabels, tiers: drawing.tiers, title}).svg
 }
 
 export type {Layout}

@@ -40,16 +40,16 @@ export interface TierAt {
 }
 
 export interface DecoratedOptions {
-  boxes?: ReadonlyArray<BoxSize>
+  boxes?: ReadonlyArray<BoxSize> | undefined
   /** Least size of each label box, in the order of `labels`. */
-  labelBoxes?: ReadonlyArray<BoxSize>
-  labels?: ReadonlyArray<LabelBoxAt>
-  tiers?: ReadonlyArray<TierAt>
+  labelBoxes?: ReadonlyArray<BoxSize> | undefined
+  labels?: ReadonlyArray<LabelBoxAt> | undefined
+  tiers?: ReadonlyArray<TierAt> | undefined
   /**
    * Level of every vertex of the split graph (vertices, then one per label in the order of `labels`),
    * as the check returned it.
    */
-  level?: ArrayLike<number>
+  level?: ArrayLike<number> | undefined
 }
 
 export function checkDecoratedDrawing(graph: Digraph, layout: Layout, options: DecoratedOptions = {}): DrawingCheck {
@@ -111,7 +111,7 @@ export function checkDecoratedDrawing(graph: Digraph, layout: Layout, options: D
   if (problems.length > 0) return {ok: false, problems}
   const split = createDigraph(n + labelNodes.length, pairs)
   const splitLayout: Layout = {...layout, nodes: [...layout.nodes, ...labelNodes], edges: splitEdges}
-  const base = checkDrawing(split, splitLayout, {boxes: options.boxes})
+  const base = checkDrawing(split, splitLayout, options.boxes ? {boxes: options.boxes} : {})
   if (!base.ok) problems.push(...base.problems)
 
   // Levels: one centre per level, strictly increasing along the flow.

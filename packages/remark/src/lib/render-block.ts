@@ -38,8 +38,8 @@ export function drawBlock(result: BlockResult): DrawOutcome {
   if (!check) return {ok: false, reason: 'the block was not checked'}
   const drawn = drawDiagram(check, {flow: result.options.flow})
   if (!drawn.ok) return {ok: false, reason: 'the diagram is not upward planar'}
-  const {layout, labels, ids, tones, links} = drawn.drawing
-  const rendered = renderSvg({layout, graph: check.graph!, labels, ids, tones, links, title: titleOf(result.options)})
+  const {layout, graph, labels, ids, tones, links, edgeLabels, tiers} = drawn.drawing
+  const rendered = renderSvg({layout, graph, labels, ids, tones, links, edgeLabels, tiers, title: titleOf(result.options)})
   return {ok: true, svg: rendered.svg, hast: rendered.hast}
 }
 
