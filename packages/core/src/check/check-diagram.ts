@@ -11,7 +11,7 @@ import type {Certificate, DiagramStatus} from './certificate.ts'
 import {testPlanarity} from '../planarity/index.ts'
 import {findMinimalObstruction, testUpwardPlanarity, type UpwardEmbedding} from '../upward/index.ts'
 import {cycleFailure, kuratowskiFailure, levelCrossingFailure, obstructionFailure, tierPathFailure, undecidedDiagnostic} from './failures.ts'
-import {mirrorUpwardEmbedding, writtenOrderScore} from './written-order.ts'
+import {preferWrittenOrder} from './written-order.ts'
 import {assignLevels, joinLabelledEdges, originalEdge, splitLabelledEdges, testLevelPlanarity, type EdgeLabelGraph, type LevelItem} from '../level/index.ts'
 import {attachFix, type Fix} from '../explain/attach-fix.ts'
 import {checkParsedLimits, checkTextLimits, resolveLimits, tooManyEdges, type Limits} from './limits.ts'
@@ -24,9 +24,8 @@ export interface CheckSettings {
   /** Size limits (each field defaults to `defaultLimits`); past one, the status is `too-large`. */
   limits?: Readonly<Partial<Limits>> | undefined
   /**
-   * Between the upward embedding found and its mirror image, take the one whose out-edges agree more
-   * with the written order (check/written-order.ts). Default false for now: turning it on changes some
-   * pictures (golden SVGs need an update with it).
+   * Where several upward embeddings exist, prefer one whose out-edges, left to right, keep the order
+   * they were written in (check/written-order.ts): a tie-break, never a constraint. Default true.
    */
   preferWrittenOrder?: boolean
 }
@@ -131,12 +130,12 @@ function checkStages(text: string, settings: Readonly<CheckSettings>): DiagramCh
     levels = tiered.levels
   }
 
-  const upward = testUpwardPlanarity(work, {maxMillis: deadline - now(), now})
+  const upward = testUpwardPlanarity(work, {maxMillis: deadline - now(), now, preferWrittenOrder: settings.preferWrittenOrder !== false})
   if (upward.status === 'upward') {
-    const found = split ? joinLabelledEdges(split, graph, upward.upward) : upward.upward
-    const mirror = settings.preferWrittenOrder === true && writtenOrderScore(mirrorUpwardEmbedding(found)) > writtenOrderScore(found)
-    const original = mirror ? mirrorUpwardEmbedding(found) : found
-    const splitUpward = split && mirror ? mirrorUpwardEmbedding(upward.upward) : upward.upward
+    // Label vertices have one out-edge and first halves keep their edge ids, so the written order
+    // reads the same on the split graph: choose there, then join.
+    const splitUpward = settings.preferWrittenOrder === false ? upward.upward : preferWrittenOrder(upward.upward)
+    const original = split ? joinLabelledEdges(split, graph, splitUpward) : splitUpward
     return {
       status: 'upward',
       diagnostics,

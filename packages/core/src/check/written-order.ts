@@ -1,12 +1,16 @@
 /**
- * Written order as a tie-break between an upward embedding and its mirror image. Reflecting an upward
- * drawing left to right keeps it upward and crossing-free, and reverses every rotation; so of the two,
- * take the one whose out-edges, read left to right at each vertex, agree more often with the order the
- * edges were written in (edge ids are written order). Equal scores keep the embedding found. O(Σ deg²)
- * for the score, O(m) for the mirror.
- *
- * This is the cheap half of the tie-break: the choice between the other embeddings is made in the
- * embedding search (upward/embedding-search.ts), which does not look at written order yet.
+ * Written order as a tie-break: where several upward embeddings exist, prefer the one whose out-edges,
+ * read left to right at each vertex, agree most often with the order the edges were written in (edge
+ * ids are written order). The upward test already tries written order first where it has a choice
+ * (upward/grow-back.ts places leaves and parallel paths, upward/embedding-search.ts tries corners in
+ * that order); here, on the embedding it found:
+ * - a source's large angle may move to any other of its angles in the same face (the face condition
+ *   only counts large angles per face), which turns its out-edges round like a carousel: take the
+ *   turn that agrees best;
+ * - reflecting the drawing keeps it upward and crossing-free and reverses every rotation: take the
+ *   mirror image if it agrees better.
+ * Equal scores keep what was found, so the same text gives the same picture. O(Σ deg³) for the
+ * sources (small in diagrams), O(Σ deg²) for the score, O(m) for the mirror.
  */
 import {dartFrom, traceFaces, type RotationSystem} from '../embedding/rotation-system.ts'
 import type {UpwardEmbedding} from '../upward/index.ts'
@@ -62,4 +66,54 @@ export function mirrorUpwardEmbedding(up: UpwardEmbedding): UpwardEmbedding {
   // The face on the left of a dart is, mirrored, the face on the left of its reverse.
   const faceOf = (face: number): number => (face < 0 ? -1 : faces.faceOfDart[up.faces.darts[face]![0]! ^ 1]!)
   return {embedding, faces, outerFace: faceOf(up.outerFace), outerFaces: Int32Array.from(up.outerFaces, faceOf), largeAngle}
+}
+
+/**
+ * How far a drawing keeps the written order: of the vertices with two or more out-edges, how many
+ * show all of them left to right in the order written.
+ */
+export function writtenOrderAgreement(up: UpwardEmbedding): {vertices: number; kept: number} {
+  let vertices = 0, kept = 0
+  for (const order of outEdgesLeftToRight(up)) {
+    if (order.length < 2) continue
+    vertices++
+    if (order.every((e, i) => i === 0 || order[i - 1]! < e)) kept++
+  }
+  return {vertices, kept}
+}
+
+/** Every source's large angle moved, within its face, to where its out-edges best keep written order. */
+export function turnSourcesToWrittenOrder(up: UpwardEmbedding): UpwardEmbedding {
+  const g = up.embedding.graph
+  const largeAngle = Int32Array.from(up.largeAngle)
+  for (let v = 0; v < g.vertexCount; v++) {
+    const r = up.embedding.rotation[v]!
+    if (largeAngle[v]! < 0 || r.length < 2 || !r.every((e) => g.tail[e] === v)) continue
+    const face = up.faces.faceOfDart[largeAngle[v]!]!
+    let best = largeAngle[v]!
+    let bestScore = pairScore(r, r.indexOf(best >> 1))
+    r.forEach((e, i) => {
+      const d = dartFrom(g, e, v) ^ 1
+      if (up.faces.faceOfDart[d] !== face) return
+      const score = pairScore(r, i)
+      if (score > bestScore) [best, bestScore] = [d, score]
+    })
+    largeAngle[v] = best
+  }
+  return {...up, largeAngle}
+}
+
+/** Pairs in written order minus pairs against it, reading r clockwise from the edge after r[at]. */
+function pairScore(r: Int32Array, at: number): number {
+  const k = r.length
+  let score = 0
+  for (let i = 1; i <= k; i++) for (let j = i + 1; j <= k; j++) score += r[(at + i) % k]! < r[(at + j) % k]! ? 1 : -1
+  return score
+}
+
+/** The embedding or its mirror image, sources turned, whichever keeps the written order better. */
+export function preferWrittenOrder(up: UpwardEmbedding): UpwardEmbedding {
+  const found = turnSourcesToWrittenOrder(up)
+  const mirrored = turnSourcesToWrittenOrder(mirrorUpwardEmbedding(found))
+  return writtenOrderScore(mirrored) > writtenOrderScore(found) ? mirrored : found
 }

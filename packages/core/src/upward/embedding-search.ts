@@ -19,6 +19,9 @@
  *   but still has an out-edge (in-edge) to place must have its large angle where that edge can go;
  * - mirror images are both upward or both not, so the first branching off a lone cycle takes one of
  *   its two faces only.
+ * Given the written order of the edges (`key`), the corners of each branching are tried best first:
+ * an out-edge placed after an out-edge written before it, and before one written after it. This
+ * changes which embedding is found first, never whether one is (a tie-break, not a constraint).
  *
  * Exponential in the worst case (the problem is NP-complete: Garg & Tamassia, SIAM J. Comput. 31,
  * 2001); the caller's budget bounds the time. Each node costs O(m·F) for faces and fragments plus the
@@ -54,6 +57,8 @@ export function searchUpwardEmbedding(
   expired: () => boolean,
   /** The vertex the embedding grows from; the order of the search depends on it, not its answer. */
   root = 0,
+  /** Written order of each edge (smaller first); when given, corners agreeing with it are tried first. */
+  key?: ArrayLike<number>,
 ): SearchOutcome {
   const m = tail.length
   const adj: number[][] = Array.from({length: n}, () => [])
@@ -184,6 +189,20 @@ export function searchUpwardEmbedding(
     return {path: [a, x], edges: [e0], ear: false} // x hangs on a by a bridge
   }
 
+  /** How well out-edge e, put at corner i of v (after rot[v][i]), agrees with its written neighbours. */
+  const agrees = (v: number, i: number, e: number): number => {
+    const r = rot[v]!
+    if (key === undefined || tail[e] !== v || r.length === 0) return 0
+    const before = r[i % r.length]!, after = r[(i + 1) % r.length]!
+    let score = 0
+    if (tail[before] === v) score += key[before]! < key[e]! ? 1 : -1
+    if (tail[after] === v) score += key[e]! < key[after]! ? 1 : -1
+    return score
+  }
+  /** Corner indices (or pairs) sorted best first by `score`; a stable sort keeps the plain order on ties. */
+  const bestFirst = <T>(list: T[], score: (x: T) => number): T[] =>
+    key === undefined ? list : list.map((x) => [x, score(x)] as const).sort((p, q) => q[1] - p[1]).map((p) => p[0])
+
   let assignmentPruned = false
   const bimodal = (touched: number[]): boolean => {
     for (const v of touched) if (changes(rot[v]!, v) > 2) return false
@@ -289,8 +308,8 @@ export function searchUpwardEmbedding(
     const good = new Uint8Array(faces)
     for (const f of bestFaces) good[f] = 1
     if (!ear) {
-      for (let i = 0; i < fa.length; i++) {
-        if (!good[fa[i]!]) continue
+      const corners = bestFirst([...fa.keys()].filter((i) => good[fa[i]!]), (i) => agrees(a, i, first))
+      for (const i of corners) {
         ra.splice(i + 1, 0, first)
         const ok = attempt()
         ra.splice(i + 1, 1)
@@ -301,17 +320,18 @@ export function searchUpwardEmbedding(
     if (a !== b) {
       const rb = rot[b]!
       const fb = faceAt[b]!
+      const pairs: Array<[number, number]> = []
       for (let i = 0; i < fa.length; i++) {
         if (!good[fa[i]!]) continue
-        for (let j = 0; j < fb.length; j++) {
-          if (fa[i] !== fb[j]) continue
-          ra.splice(i + 1, 0, first)
-          rb.splice(j + 1, 0, last)
-          const ok = attempt()
-          ra.splice(i + 1, 1)
-          rb.splice(j + 1, 1)
-          if (ok) return true
-        }
+        for (let j = 0; j < fb.length; j++) if (fa[i] === fb[j]) pairs.push([i, j])
+      }
+      for (const [i, j] of bestFirst(pairs, ([i, j]) => agrees(a, i, first) + agrees(b, j, last))) {
+        ra.splice(i + 1, 0, first)
+        rb.splice(j + 1, 0, last)
+        const ok = attempt()
+        ra.splice(i + 1, 1)
+        rb.splice(j + 1, 1)
+        if (ok) return true
       }
       return false
     }

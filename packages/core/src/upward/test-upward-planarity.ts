@@ -31,7 +31,7 @@ import {traceFaces} from '../embedding/rotation-system.ts'
 import {findCycle} from '../acyclic/find-cycle.ts'
 import {testPlanarity} from '../planarity/test-planarity.ts'
 import {reduceComponent, type Reduction} from './reduce.ts'
-import {growBack, type AngleEmbedding} from './grow-back.ts'
+import {growBack, writtenKeys, type AngleEmbedding} from './grow-back.ts'
 import {assignLargeAngles} from './large-angle-assignment.ts'
 import {searchUpwardEmbedding} from './embedding-search.ts'
 import {testUpwardEmbedded} from './fixed-embedding.ts'
@@ -42,6 +42,11 @@ export interface UpwardBudget {
   maxMillis: number
   /** Clock in milliseconds. Default performance.now. */
   now?: () => number
+  /**
+   * Prefer the written order (edge ids) where several upward embeddings exist: the branch and bound
+   * tries corners in written order first (a tie-break; the answer is the same). Default false.
+   */
+  preferWrittenOrder?: boolean
 }
 
 /**
@@ -97,7 +102,7 @@ export function testUpwardPlanarity(g: Digraph, budget?: Readonly<UpwardBudget>)
   for (const comp of weakComponents(g)) {
     if (expired()) return {status: 'undecided', reason: 'budget', searchNodes}
     const red = reduceComponent(g, comp)
-    const core = decideCore(red, expired)
+    const core = decideCore(red, expired, budget?.preferWrittenOrder === true)
     searchNodes += core.nodes
     if (core.kind === 'budget') return {status: 'undecided', reason: 'budget', searchNodes}
     raise(core.method)
@@ -134,7 +139,7 @@ type CoreDecision =
   | {kind: 'budget'; nodes: number}
 
 /** Decide a reduced core; rotations use core-local vertex and edge ids. */
-function decideCore(red: Reduction, expired: () => boolean): CoreDecision {
+function decideCore(red: Reduction, expired: () => boolean, preferWrittenOrder: boolean): CoreDecision {
   const k = red.coreVertices.length
   const local = new Map<number, number>()
   red.coreVertices.forEach((v, i) => local.set(v, i))
@@ -194,6 +199,8 @@ function decideCore(red: Reduction, expired: () => boolean): CoreDecision {
   // one finds an embedding or finishes its search (a finished search is a proof of "no").
   let spent = 0
   let out: ReturnType<typeof searchUpwardEmbedding>
+  const written = preferWrittenOrder ? writtenKeys(red) : undefined
+  const key = written && red.coreEdges.map((e) => written[e]!)
   for (let attempt = 0; ; attempt++) {
     let left = 1024 * 2 ** attempt
     const root = (attempt * 7919) % k
@@ -201,7 +208,7 @@ function decideCore(red: Reduction, expired: () => boolean): CoreDecision {
     out = searchUpwardEmbedding(k, tail, head, 'upward', () => {
       if (--left < 0) capped = true
       return capped || expired()
-    }, root)
+    }, root, key)
     spent += out.nodes
     if (out.found !== 'budget') break
     if (!capped) return {kind: 'budget', nodes: spent}
