@@ -159,9 +159,13 @@ export function stAugment(up: UpwardEmbedding, options: Readonly<StAugmentOption
   const outerIndex = new Map<number, number>()
   up.outerFaces.forEach((f, i) => outerIndex.set(f, i))
 
+  // Without a hook, saturations are chosen to keep H shallow (saturateShallow); with one, the plain
+  // walk-order saturation the hook's caller was written against.
+  const depth = options.allowEdge ? undefined : pathDepths(g)
   for (let f = 0; f < faces.darts.length; f++) {
     const list = switchList(g, faces.darts[f]!, next, up.largeAngle)
-    saturate(rot, list, options.allowEdge)
+    if (depth) saturateShallow(rot, list, depth)
+    else saturate(rot, list, options.allowEdge)
     const alive = aliveNodes(list)
     if (!outerSet.has(f)) {
       if (alive.length !== 2 || alive.some((i) => list.large[i])) {
@@ -340,6 +344,145 @@ function saturate(rot: Rotations, list: SwitchList, allowEdge?: (tail: number, h
     }
     x = list.next[x]!
     quiet++
+  }
+}
+
+/** Longest path (in edges) in G ending at each vertex (`up`) and starting at it (`down`); O(n + m). */
+function pathDepths(g: Digraph): {up: Int32Array; down: Int32Array} {
+  const n = g.vertexCount
+  const indeg = new Int32Array(n)
+  for (let e = 0; e < g.edgeCount; e++) indeg[g.head[e]!]!++
+  const order = new Int32Array(n)
+  let qt = 0
+  for (let v = 0; v < n; v++) if (indeg[v] === 0) order[qt++] = v
+  for (let qh = 0; qh < qt; qh++) {
+    const v = order[qh]!
+    for (let i = g.outStart[v]!; i < g.outStart[v + 1]!; i++) {
+      const w = g.head[g.outEdges[i]!]!
+      if (--indeg[w] === 0) order[qt++] = w
+    }
+  }
+  if (qt !== n) throw new Error('stAugment: the graph has a directed cycle')
+  const up = new Int32Array(n)
+  const down = new Int32Array(n)
+  for (let k = 0; k < n; k++) {
+    const v = order[k]!
+    for (let i = g.outStart[v]!; i < g.outStart[v + 1]!; i++) {
+      const w = g.head[g.outEdges[i]!]!
+      if (up[v]! + 1 > up[w]!) up[w] = up[v]! + 1
+    }
+  }
+  for (let k = n - 1; k >= 0; k--) {
+    const v = order[k]!
+    for (let i = g.outStart[v]!; i < g.outStart[v + 1]!; i++) {
+      const w = g.head[g.outEdges[i]!]!
+      if (down[w]! + 1 > down[v]!) down[v] = down[w]! + 1
+    }
+  }
+  return {up, down}
+}
+
+/**
+ * Saturates a face like `saturate`, choosing among the possible saturations the ones that lengthen
+ * paths least. Besides L, S, S (x, y, z in walk order) the mirror S, S, L (z, y, x) is equally valid:
+ * reading the walk backwards turns one into the other, and the same edge between x and z, placed in
+ * the same two angles, cuts off the piece z..y..x as an st-face; the rest keeps z (small, its angle
+ * unchanged) and loses y and x. Either way the count argument of the file comment holds, and a face
+ * is finished exactly when no two S's are adjacent, so the end state is the same as saturate's.
+ *
+ * Which saturations come first decides the edges (an L's partner two steps on depends on what was
+ * cut off before). Each candidate edge a -> b is scored by the longest path of G it would close,
+ * up(a) + 1 + down(b) (longest G paths into a and out of b), and the lowest score goes first: an
+ * edge joining a low vertex to a high one costs no height, one from high up to low down stacks two
+ * parts of G on top of each other. Greedy, with G's depths fixed at the start (edges added in other
+ * faces are not counted), so a heuristic; a binary heap with lazy deletion keeps it O(k log k) for a
+ * face of k switches, so O((n + m) log(n + m)) in all.
+ */
+function saturateShallow(rot: Rotations, list: SwitchList, depth: {up: Int32Array; down: Int32Array}): void {
+  const k = list.dart.length
+  if (k < 3) return
+  // Heap of candidates keyed score * 4k + 2x + dir (dir 0: L, S, S forward from x; 1: S, S, L back).
+  const heap: number[] = []
+  const partner = new Int32Array(2 * k).fill(-1)
+  const push = (key: number): void => {
+    let i = heap.length
+    heap.push(key)
+    while (i > 0) {
+      const p = (i - 1) >> 1
+      if (heap[p]! <= key) break
+      heap[i] = heap[p]!
+      i = p
+    }
+    heap[i] = key
+  }
+  const pop = (): number => {
+    const top = heap[0]!
+    const last = heap.pop()!
+    if (heap.length > 0) {
+      let i = 0
+      for (;;) {
+        let c = 2 * i + 1
+        if (c >= heap.length) break
+        if (c + 1 < heap.length && heap[c + 1]! < heap[c]!) c++
+        if (heap[c]! >= last) break
+        heap[i] = heap[c]!
+        i = c
+      }
+      heap[i] = last
+    }
+    return top
+  }
+  // The partner z of x in direction dir, or -1 when that pattern does not hold now.
+  const partnerOf = (x: number, dir: number): number => {
+    if (list.removed[x] || !list.large[x]) return -1
+    const step = dir === 0 ? list.next : list.prev
+    const y = step[x]!
+    const z = step[y]!
+    return z !== x && !list.large[y] && !list.large[z] ? z : -1
+  }
+  const offer = (x: number): void => {
+    for (let dir = 0; dir < 2; dir++) {
+      const z = partnerOf(x, dir)
+      if (z < 0 || partner[2 * x + dir] === z) continue
+      partner[2 * x + dir] = z
+      const vx = list.vertex[x]!
+      const vz = list.vertex[z]!
+      const score = list.sourceSwitch[x] ? depth.up[vz]! + depth.down[vx]! : depth.up[vx]! + depth.down[vz]!
+      push(score * 4 * k + 2 * x + dir)
+    }
+  }
+  for (let x = 0; x < k; x++) offer(x)
+  while (heap.length > 0) {
+    const key = pop()
+    const x = (key % (4 * k)) >> 1
+    const dir = key & 1
+    const z = partnerOf(x, dir)
+    if (z < 0 || z !== partner[2 * x + dir]) continue
+    const y = (dir === 0 ? list.next : list.prev)[x]!
+    const vx = list.vertex[x]!
+    const vz = list.vertex[z]!
+    if (vx === vz) throw new Error(`stAugment: saturating edge would be a loop at ${vx}`)
+    const e = list.sourceSwitch[x] ? rot.addEdge(vz, vx) : rot.addEdge(vx, vz)
+    rot.placeInAngle(e, vz, list.dart[z]!)
+    rot.placeInAngle(e, vx, list.dart[x]!)
+    list.removed[x] = true
+    list.removed[y] = true
+    let a: number
+    let b: number
+    if (dir === 0) {
+      // z stays, small, its angle in the remaining face now after the new edge.
+      list.dart[z] = rot.dartFrom(e, vz) ^ 1
+      a = list.prev[x]!
+      b = z
+    } else {
+      a = z
+      b = list.next[x]!
+    }
+    list.next[a] = b
+    list.prev[b] = a
+    // Only patterns within two steps of the new junction a, b changed.
+    let w = list.prev[list.prev[a]!]!
+    for (let i = 0; i < 6; i++, w = list.next[w]!) offer(w)
   }
 }
 
