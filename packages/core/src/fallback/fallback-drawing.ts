@@ -5,14 +5,19 @@
  * 1. A cycle is broken by reversing a small feedback arc set (explain/feedback-arc-set.ts); those edges
  *    are drawn against the flow, i.e. with their arrow pointing the other way, and marked `reversed`.
  *    Self-loops cannot be drawn either way and are left out (listed in `omitted`).
- * 2. A maximal upward planar subgraph (explain/upward-subgraph.ts) is drawn crossing-free as usual:
- *    upward embedding → st-augmentation → the layout stage.
+ * 2. A maximal feasible upward planar subgraph (explain/upward-subgraph.ts with the condition of
+ *    `feasibility` below) is drawn crossing-free as usual: upward embedding → st-augmentation → the
+ *    layout stage. Feasible (Chimani, Gutwenger, Mutzel & Wong, "Layer-free upward crossing
+ *    minimization", ACM JEA 15, 2010): the augmentation stays acyclic together with every dropped
+ *    edge, so each dropped edge has an upward route.
  * 3. The dropped edges are inserted one at a time, in written order, into the embedded st-digraph with
- *    few crossings (insert-edges.ts: upward planarization after Chimani, Gutwenger, Mutzel & Wong,
- *    2010/2011); crossings become dummy vertices, so the layout stage draws the planarized graph
+ *    few crossings (insert-edges.ts: upward planarization after Chimani et al. 2010 and "Upward
+ *    planarization layout", JGAA 15(1), 2011), then each is taken out and routed again once all are
+ *    in; crossings become dummy vertices, so the layout stage draws the planarized graph
  *    crossing-free and the dummies are then removed, leaving the crossings. Inserted edges are marked
- *    `inserted`. A dropped edge (u, v) whose insertion would close a cycle with the augmentation is
- *    inserted as (v, u) and marked `reversed` as well (its arrow still points at v).
+ *    `inserted`. Only if no subgraph passed the feasibility condition in the time budget can a
+ *    dropped edge (u, v) close a cycle with the augmentation; it is then inserted as (v, u) and marked
+ *    `reversed` as well (its arrow still points at v).
  *
  * Every crossing of the result involves at least one marked edge: the subgraph of unmarked edges is
  * drawn exactly as the layout stage draws it, crossing-free.
@@ -27,7 +32,7 @@ import type {Flow, ParsedDiagram} from '../parse/index.ts'
 import {testUpwardPlanarity, type UpwardBudget} from '../upward/index.ts'
 import {feedbackArcSet} from '../explain/feedback-arc-set.ts'
 import {maximalUpwardSubgraph, type SubgraphCondition} from '../explain/upward-subgraph.ts'
-import {insertEdge, type EditableEmbedding} from './insert-edges.ts'
+import {insertEdge, removeEdge, type EditableEmbedding} from './insert-edges.ts'
 
 export type EdgeMark = 'inserted' | 'reversed' | 'reversed-inserted'
 
@@ -75,10 +80,9 @@ export function layoutFallback(g: Digraph, settings: Readonly<FallbackSettings>)
   const from = (e: number): number => (flipped.has(e) ? g.head[e]! : g.tail[e]!)
   const to = (e: number): number => (flipped.has(e) ? g.tail[e]! : g.head[e]!)
   const acyclic = createDigraph(n, drawable.map((e) => [from(e), to(e)] as const))
-  // 2. Maximal upward planar subgraphs grown in a few edge orders (written, reversed, by a topological
-  // order of the tails); each is drawn, and the drawing with the fewest edges against the flow, then
-  // the fewest crossings, is kept. Edges land against the flow only when the augmentation of the chosen
-  // subgraph forces it, which depends on the subgraph, so trying several pays.
+  // 2. Maximal feasible upward planar subgraphs grown in a few edge orders (written, reversed, by a
+  // topological order of the tails); each is drawn, and the drawing with the fewest edges against the
+  // flow (none unless the budget ran out), then the fewest crossings, is kept.
   const topo = topologicalRank(acyclic)
   const orders = [
     [...Array(drawable.length).keys()],
@@ -166,6 +170,19 @@ function drawWithOrder(
     if (item.reversed) reversedAlso.add(item.e)
     const flippedTwice = flipped.has(item.e) !== item.reversed
     marks[item.e] = flippedTwice ? 'reversed-inserted' : 'inserted'
+  }
+  // Local improvement (the re-insertion step of planarization heuristics, common practice): take each
+  // inserted edge out and route it again now that all the others are in; a pass never adds crossings
+  // (the old route is still a candidate), and passes repeat while they gain, at most three.
+  for (let pass = 0; pass < 3 && order.length > 1; pass++) {
+    const start = crossings
+    for (const item of order) {
+      crossings -= removeEdge(h, height, item.e)
+      const r = insertEdge(h, height, item.u, item.v, item.e, outerDart, 2 * fromSink)
+      if (!r.ok) throw new Error(`layoutFallback: could not re-insert edge ${item.e}`)
+      crossings += r.crossings
+    }
+    if (crossings >= start) break
   }
 
   // 4. Renumber: drawn vertices (G's, then dummies) first, drawn edges first, as the layout wants.

@@ -242,3 +242,53 @@ export function insertEdge(h: EditableEmbedding, height: number[], u: number, v:
   return {ok: true, crossings: drawnCrossed}
 }
 
+
+/**
+ * Take an inserted edge out again (for re-insertion): its pieces and the dummies on its route go,
+ * and each edge it crossed is joined back into one piece. Ids are compacted in order; the ids of H
+ * before any insertion are smaller than every piece and dummy, so they stay as they were. `height`
+ * is compacted with the vertices (the rest keep their heights, still a topological numbering).
+ * Returns the number of drawn edges the route crossed. O(size of H).
+ */
+export function removeEdge(h: EditableEmbedding, height: number[], owner: number): number {
+  const edgeCount = h.tail.length
+  const vertexCount = h.rotation.length
+  const goneEdge = new Uint8Array(edgeCount)
+  const goneVertex = new Uint8Array(vertexCount)
+  let crossed = 0
+  for (let e = 0; e < edgeCount; e++) if (h.owner[e] === owner) goneEdge[e] = 1
+  for (let e = 0; e < edgeCount; e++) {
+    if (h.owner[e] !== owner) continue
+    const x = h.head[e]!
+    if (h.dummy[x] === 0) continue // the route's end
+    // x is a dummy of the route: two of its edges are pieces of this edge, the other two of the edge
+    // it crossed, lower piece into x and upper piece out of x; the lower piece takes the upper's place.
+    goneVertex[x] = 1
+    if (h.dummy[x] === 1) crossed++
+    const others = h.rotation[x]!.filter((f) => !goneEdge[f])
+    const lower = others.find((f) => h.head[f] === x)!
+    const upper = others.find((f) => h.tail[f] === x)!
+    const b = h.head[upper]!
+    h.head[lower] = b
+    const rb = h.rotation[b]!
+    rb[rb.indexOf(upper)] = lower
+    goneEdge[upper] = 1
+  }
+  const edgeId = new Int32Array(edgeCount)
+  let nextEdge = 0
+  for (let e = 0; e < edgeCount; e++) edgeId[e] = goneEdge[e] ? -1 : nextEdge++
+  const vertexId = new Int32Array(vertexCount)
+  let nextVertex = 0
+  for (let v = 0; v < vertexCount; v++) vertexId[v] = goneVertex[v] ? -1 : nextVertex++
+  const keepEdge = (_: unknown, e: number): boolean => !goneEdge[e]
+  const keepVertex = (_: unknown, v: number): boolean => !goneVertex[v]
+  h.tail = h.tail.filter(keepEdge).map((v) => vertexId[v]!)
+  h.head = h.head.filter(keepEdge).map((v) => vertexId[v]!)
+  h.owner = h.owner.filter(keepEdge)
+  h.rotation = h.rotation.filter(keepVertex).map((rot) => rot.filter((e) => !goneEdge[e]).map((e) => edgeId[e]!))
+  h.dummy = h.dummy.filter(keepVertex)
+  const heights = height.filter(keepVertex)
+  height.length = 0
+  height.push(...heights)
+  return crossed
+}
