@@ -39,6 +39,16 @@ export function demoGraphs(pagesDir: string): DemoGraph[] {
   return graphs
 }
 
+/** The text of every demo diagram, with its page and line. */
+export function demoBodies(pagesDir: string): Array<{page: string; line: number; body: string}> {
+  const bodies: Array<{page: string; line: number; body: string}> = []
+  for (const name of readdirSync(pagesDir).filter((f) => f.endsWith('.md')).sort()) {
+    const text = readFileSync(path.join(pagesDir, name), 'utf8')
+    for (const block of findDiagramBlocks(parseMarkdown(text), lineIndex(text))) bodies.push({page: name, line: block.start.line, body: block.body})
+  }
+  return bodies
+}
+
 /** findDiagramBlocks wants the plugin's line index; build the same one from the text. */
 function lineIndex(text: string): Parameters<typeof findDiagramBlocks>[1] {
   const starts = [0]
@@ -73,7 +83,9 @@ export const witnessEdges: Readonly<Record<string, ReadonlyArray<[string, string
   // Compost bay 2 hangs off drying room B inside the face dry_b, thresh_1, winnow, thresh_2.
   'seed-lots.md:12': [['bay_2', 'winnow']],
   // The data-quality alerts hang off return facts inside the face f_returns, r_circ, board, r_quality.
-  'data.md:47': [['dq', 'board']]
+  'data.md:47': [['dq', 'board']],
+  // The vault keeper is a source inside the face lending desk, lot ledger, member parcel.
+  'seed-year.md:37': [['desk', 'keeper']]
 }
 
 export interface NetworkxVerdict {
