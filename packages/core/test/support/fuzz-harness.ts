@@ -23,7 +23,7 @@ import {verifyCycle} from '../../src/acyclic/index.ts'
 import {verifyStGraph} from '../../src/augment/index.ts'
 import {checkDiagram, type DiagramCheck} from '../../src/check/index.ts'
 import {limitRuleIds, type Limits} from '../../src/check/limits.ts'
-import {drawDiagram} from '../../src/draw/index.ts'
+import {drawDiagram, EDGE_LABEL_BOX, TIER_CAPTION_BOX} from '../../src/draw/index.ts'
 import {createDigraph, type Digraph} from '../../src/graph/digraph.ts'
 import {labelBox} from '../../src/measure/index.ts'
 import {parseRuleIds, type Flow} from '../../src/parse/index.ts'
@@ -31,7 +31,7 @@ import {verifyKuratowski} from '../../src/planarity/index.ts'
 import type {Point, SourceRange} from '../../src/source-range.ts'
 import {testUpwardPlanarity} from '../../src/upward/index.ts'
 import {renderSvg} from '../../../svg/src/index.ts'
-import {checkDrawing} from './geometry-check.ts'
+import {checkDecoratedDrawing} from './decorated-check.ts'
 import {isUpwardPlanarBruteForce} from './upward-oracle.ts'
 
 export type Outcome = DiagramCheck['status'] | 'threw'
@@ -170,13 +170,15 @@ function verifyOutcome(check: DiagramCheck, settings: CaseSettings, problems: st
       if (settings.draw === false) return
       const drawn = drawDiagram(check, {flow: settings.flow ?? 'up'})
       if (!drawn.ok) return void problems.push('a passing diagram could not be drawn')
-      const {layout, st, labels, ids} = drawn.drawing
+      const {layout, st, labels, ids, edgeLabels, tiers} = drawn.drawing
       const st1 = verifyStGraph(g, st, check.upward.embedding)
       if (!st1.ok) problems.push(`st-augmentation: ${st1.reason}`)
       const boxes = labels.map((label) => labelBox(label))
-      const geometry = checkDrawing(g, layout, {boxes})
+      // Edge-label boxes and tier rows too (support/decorated-check.ts).
+      const labelBoxes = edgeLabels.map((label) => labelBox(label.text, EDGE_LABEL_BOX))
+      const geometry = checkDecoratedDrawing(g, layout, {boxes, labels: edgeLabels, labelBoxes, tiers, level: check.levels?.level})
       if (!geometry.ok) problems.push(`drawing: ${geometry.problems.join('; ')}`)
-      const rendered = renderSvg({layout, graph: g, labels, ids})
+      const rendered = renderSvg({layout, graph: g, labels, ids, edgeLabels, tiers})
       if (!rendered.svg.startsWith('<svg')) problems.push('SVG does not start with <svg')
       if (countElements(rendered.hast as HastNode, 'svg') !== 1) problems.push('not exactly one <svg> element')
       for (const forbidden of ['script', 'foreignObject', 'a', 'iframe']) {
@@ -184,7 +186,11 @@ function verifyOutcome(check: DiagramCheck, settings: CaseSettings, problems: st
       }
       const drawnTexts = [] as string[]
       textsOf(rendered.hast as HastNode, drawnTexts)
-      const expected = labels.flatMap((label) => labelBox(label).lines.filter((line) => line !== ''))
+      const expected = [
+        ...labels.flatMap((label) => labelBox(label).lines.filter((line) => line !== '')),
+        ...edgeLabels.flatMap((label) => labelBox(label.text, EDGE_LABEL_BOX).lines.filter((line) => line !== '')),
+        ...tiers.flatMap((tier) => labelBox(tier.text, TIER_CAPTION_BOX).lines.filter((line) => line !== ''))
+      ]
       if (JSON.stringify([...drawnTexts].sort()) !== JSON.stringify([...expected].sort())) {
         problems.push(`SVG text ${JSON.stringify(drawnTexts)} is not the label lines ${JSON.stringify(expected)}`)
       }
