@@ -10,7 +10,7 @@
  * - reflecting the drawing keeps it upward and crossing-free and reverses every rotation: take the
  *   mirror image if it agrees better.
  * Equal scores keep what was found, so the same text gives the same picture. O(Σ deg³) for the
- * sources (small in diagrams), O(Σ deg²) for the score, O(m) for the mirror.
+ * sources and the score, O(m) for the mirror.
  */
 import {dartFrom, traceFaces, type RotationSystem} from '../embedding/rotation-system.ts'
 import type {UpwardEmbedding} from '../upward/index.ts'
@@ -90,25 +90,35 @@ export function turnSourcesToWrittenOrder(up: UpwardEmbedding): UpwardEmbedding 
     const r = up.embedding.rotation[v]!
     if (largeAngle[v]! < 0 || r.length < 2 || !r.every((e) => g.tail[e] === v)) continue
     const face = up.faces.faceOfDart[largeAngle[v]!]!
+    const scores = turnScores(r)
     let best = largeAngle[v]!
-    let bestScore = pairScore(r, r.indexOf(best >> 1))
+    let bestScore = scores[r.indexOf(best >> 1)]!
     r.forEach((e, i) => {
       const d = dartFrom(g, e, v) ^ 1
-      if (up.faces.faceOfDart[d] !== face) return
-      const score = pairScore(r, i)
-      if (score > bestScore) [best, bestScore] = [d, score]
+      if (up.faces.faceOfDart[d] === face && scores[i]! > bestScore) [best, bestScore] = [d, scores[i]!]
     })
     largeAngle[v] = best
   }
   return {...up, largeAngle}
 }
 
-/** Pairs in written order minus pairs against it, reading r clockwise from the edge after r[at]. */
-function pairScore(r: Int32Array, at: number): number {
+/**
+ * For each i, pairs in written order minus pairs against it when r is read clockwise from r[i + 1]
+ * (the large angle after r[i]). Turning by one moves r[i] from first to last, which flips the sign
+ * of each of its pairs: O(k²) for all k turns.
+ */
+function turnScores(r: Int32Array): number[] {
   const k = r.length
-  let score = 0
-  for (let i = 1; i <= k; i++) for (let j = i + 1; j <= k; j++) score += r[(at + i) % k]! < r[(at + j) % k]! ? 1 : -1
-  return score
+  let score = 0 // read from r[0], i.e. the turn i = k - 1
+  for (let i = 0; i < k; i++) for (let j = i + 1; j < k; j++) score += r[i]! < r[j]! ? 1 : -1
+  const scores = new Array<number>(k)
+  for (let i = 0; i < k; i++) {
+    let pairs = 0
+    for (let j = 0; j < k; j++) if (j !== i) pairs += r[i]! < r[j]! ? 1 : -1
+    score -= 2 * pairs
+    scores[i] = score
+  }
+  return scores
 }
 
 /** The embedding or its mirror image, sources turned, whichever keeps the written order better. */
