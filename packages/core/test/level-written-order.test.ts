@@ -95,6 +95,10 @@ describe('written order', () => {
       if (plain.status !== 'upward') continue
       const kept = checkDiagram(text, {budgetMillis: 20_000})
       expect(kept.status).toBe('upward')
+      // the same text, the same embedding (rotations and large angles), every time
+      const again = checkDiagram(text, {budgetMillis: 20_000})
+      expect(Array.from(again.upward!.embedding.rotation, (r) => r.join())).toEqual(Array.from(kept.upward!.embedding.rotation, (r) => r.join()))
+      expect(Array.from(again.upward!.largeAngle)).toEqual(Array.from(kept.upward!.largeAngle))
       // an independent look at the embedding: the fixed-embedding test accepts its rotations
       expect(testUpwardEmbedded(kept.upward!.embedding).ok).toBe(true)
       expect(drawable(kept.graph!, kept.upward!)).toEqual([])
@@ -119,6 +123,26 @@ describe('written order', () => {
         expect(up.faces.faceOfDart[turned.largeAngle[v]!]).toBe(up.faces.faceOfDart[up.largeAngle[v]!])
       }
       expect(writtenOrderScore(turned)).toBeGreaterThanOrEqual(writtenOrderScore(up))
+      // the score (merge-sort inversions) against counting every pair
+      let pairs = 0
+      for (const order of outEdgesLeftToRight(turned)) {
+        for (let i = 0; i < order.length; i++) for (let j = i + 1; j < order.length; j++) pairs += order[i]! < order[j]! ? 1 : -1
+      }
+      expect(writtenOrderScore(turned)).toBe(pairs)
+      // no other angle of a source in the same face scores better than the one chosen (checked by
+      // moving each large angle by hand and re-scoring)
+      const g = up.embedding.graph
+      for (let v = 0; v < g.vertexCount; v++) {
+        const r = up.embedding.rotation[v]!
+        if (turned.largeAngle[v]! < 0 || !r.every((e) => g.tail[e] === v)) continue
+        for (const e of r) {
+          const d = 2 * e + 1
+          if (up.faces.faceOfDart[d] !== up.faces.faceOfDart[turned.largeAngle[v]!]) continue
+          const moved = Int32Array.from(turned.largeAngle)
+          moved[v] = d
+          expect(writtenOrderScore({...turned, largeAngle: moved})).toBeLessThanOrEqual(writtenOrderScore(turned))
+        }
+      }
       expect(drawable(result.graph!, turned)).toEqual([])
     }
   })
