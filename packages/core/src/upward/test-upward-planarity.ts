@@ -13,6 +13,8 @@
  *      a face); the embedding of core + (s, t) minus that edge is the upward embedding;
  *    - every vertex a source or a sink: planar suffices (Di Battista, Liu & Rival, IPL 36, 1990), and
  *      the planarity embedding is checked with the face-assignment condition before it is used;
+ *    - one source (and several sinks): the polynomial test of single-source.ts (Bertolazzi, Di
+ *      Battista, Mannino & Tamassia, SIAM J. Comput. 27, 1998), O(n²) here, never the search;
  *    - otherwise: first the planarity test's own embedding is tried with the face-assignment
  *      condition (cheap, often enough), then core + a new source S before every source + a new
  *      sink T after every sink + (S, T), an st-digraph, for planarity (sufficient: all sources and
@@ -22,8 +24,9 @@
  *      or if a bimodal-only search of similar size finishes empty; else "no upward embedding".
  * 4. The core's embedding is grown back through the reductions (grow-back.ts) and handed to the
  *    fixed-embedding test (fixed-embedding.ts), which returns the UpwardEmbedding of the input graph.
- * Only the search in 3 is exponential (the problem is NP-complete, Garg & Tamassia 2001); all else is
- * linear, or O(F·m) for the assignment over all outer faces.
+ * Only the search in 3 (reached by cores with several sources) is exponential (the problem is
+ * NP-complete, Garg & Tamassia 2001); all else is linear, or O(F·m) for the assignment over all
+ * outer faces, or O(n²) for the single-source test.
  */
 import {createDigraph, type Digraph} from '../graph/digraph.ts'
 import type {RotationSystem} from '../embedding/rotation-system.ts'
@@ -35,6 +38,7 @@ import {growBack, writtenKeys, type AngleEmbedding} from './grow-back.ts'
 import {assignLargeAngles} from './large-angle-assignment.ts'
 import {searchUpwardEmbedding} from './embedding-search.ts'
 import {testUpwardEmbedded} from './fixed-embedding.ts'
+import {expansionGraph, upwardRotationSingleSource} from './single-source.ts'
 import type {UpwardEmbedding} from './upward-embedding.ts'
 
 export interface UpwardBudget {
@@ -52,7 +56,8 @@ export interface UpwardBudget {
 /**
  * Which path decided: 'planarity' (the graph is not planar), 'reduced' (every component reduced to
  * nothing), 'st', 'sources-sinks', 'first-embedding' (the planarity embedding was already upward),
- * 'extremes-outside' (all sources and sinks fit on the outer face), 'search' (branch and bound). With several components, the costliest path taken is named.
+ * 'extremes-outside' (all sources and sinks fit on the outer face), 'single-source' (the polynomial
+ * single-source test), 'search' (branch and bound). With several components, the costliest path taken is named.
  */
 export type UpwardMethod =
   | 'planarity'
@@ -61,6 +66,7 @@ export type UpwardMethod =
   | 'sources-sinks'
   | 'first-embedding'
   | 'extremes-outside'
+  | 'single-source'
   | 'search'
 
 export type UpwardTestResult =
@@ -73,7 +79,7 @@ export type UpwardTestResult =
     }
   | {status: 'undecided'; reason: 'budget'; searchNodes: number}
 
-const methodRank: readonly UpwardMethod[] = ['reduced', 'st', 'sources-sinks', 'first-embedding', 'extremes-outside', 'search', 'planarity']
+const methodRank: readonly UpwardMethod[] = ['reduced', 'st', 'sources-sinks', 'first-embedding', 'extremes-outside', 'single-source', 'search', 'planarity']
 
 /**
  * Throws RangeError when g has a directed cycle or a self-loop: the caller checks acyclicity first
@@ -175,6 +181,19 @@ function decideCore(red: Reduction, expired: () => boolean, preferWrittenOrder: 
     if (!withST.planar) return {kind: 'no', method: 'st', reason: 'no-upward-embedding', nodes: 0}
     const found = tryEmbedding(withST.embedding)
     if (found !== null) return {kind: 'yes', method: 'st', rot: found.rot, large: found.angles.large, outerVertex: found.angles.outerVertex, nodes: 0}
+  } else if (sources.length === 1) {
+    // One source: the polynomial test (single-source.ts, Bertolazzi et al. 1998) decides; no search.
+    const core = createDigraph(k, pairs)
+    const rot = upwardRotationSingleSource(core)
+    if (rot === null) {
+      // no bimodal planar embedding at all iff the expansion graph (v split into v -> v') is nonplanar
+      const x = expansionGraph(core)
+      const bimodal = testPlanarity(createDigraph(x.vertexCount, x.edges)).planar
+      return {kind: 'no', method: 'single-source', reason: bimodal ? 'no-upward-embedding' : 'not-bimodal', nodes: 0}
+    }
+    const angles = assignLargeAngles(rot, tail, head)
+    if (angles === null) throw new Error('internal: single-source embedding has no large-angle assignment')
+    return {kind: 'yes', method: 'single-source', rot, large: angles.large, outerVertex: angles.outerVertex, nodes: 0}
   } else {
     const plain = testPlanarity(createDigraph(k, pairs))
     if (plain.planar) {
