@@ -80,32 +80,65 @@ export function layoutFallback(g: Digraph, settings: Readonly<FallbackSettings>)
   const from = (e: number): number => (flipped.has(e) ? g.head[e]! : g.tail[e]!)
   const to = (e: number): number => (flipped.has(e) ? g.tail[e]! : g.head[e]!)
   const acyclic = createDigraph(n, drawable.map((e) => [from(e), to(e)] as const))
-  // 2. Maximal feasible upward planar subgraphs grown in a few edge orders (written, reversed, by a
-  // topological order of the tails); each is drawn, and the drawing with the fewest edges against the
-  // flow (none unless the budget ran out), then the fewest crossings, is kept.
+  // 2. Maximal feasible upward planar subgraphs grown in several edge orders (written, reversed, by a
+  // topological order of the tails, then a few seeded shuffles); each is planarized, and the one with
+  // the fewest edges against the flow (none unless the budget ran out), then the fewest crossings, is
+  // drawn. Which edges are dropped decides most of the crossings, and a drawing rarely costs much, so
+  // the extra orders pay (on North's g.16.60 they take 45 crossings down to 25).
   const topo = topologicalRank(acyclic)
   const orders = [
     [...Array(drawable.length).keys()],
     [...Array(drawable.length).keys()].reverse(),
     [...Array(drawable.length).keys()].sort((a, b) => topo[acyclic.tail[a]!]! - topo[acyclic.tail[b]!]! || topo[acyclic.head[a]!]! - topo[acyclic.head[b]!]! || a - b)
   ]
-  let best: FallbackLayout | undefined
+  const fixedOrders = orders.length
+  const random = seededRandom(0x5eed)
+  for (let k = 0; k < shuffledOrders; k++) {
+    const order = [...Array(drawable.length).keys()]
+    for (let i = order.length - 1; i > 0; i--) {
+      const j = Math.floor(random() * (i + 1))
+      ;[order[i], order[j]] = [order[j]!, order[i]!]
+    }
+    orders.push(order)
+  }
+  let best: Planarized | undefined
   let bestScore = Infinity
   for (let k = 0; k < orders.length; k++) {
-    const share = Math.max(0, deadline - now()) / (orders.length - k)
-    const attempt = drawWithOrder(g, settings, drawable, flipped, acyclic, orders[k]!, omitted, {maxMillis: share, now})
-    const score = attempt.reversed.filter((e) => !flipped.has(e)).length * 1e6 + attempt.crossings
+    // The fixed orders share the budget among themselves; the shuffles get what they leave.
+    const share = Math.max(0, deadline - now()) / ((k < fixedOrders ? fixedOrders : orders.length) - k)
+    const attempt = planWithOrder(g, settings, drawable, flipped, acyclic, orders[k]!, omitted, {maxMillis: share, now})
+    const score = attempt.against * 1e6 + attempt.crossings
     if (score < bestScore) {
       best = attempt
       bestScore = score
     }
     if (score === 0) break
   }
-  return best!
+  return best!.draw()
 }
 
-/** Steps 2 to 5 for one edge order. */
-function drawWithOrder(
+/** Seeded shuffles after the three fixed orders (the output stays deterministic). */
+const shuffledOrders = 8
+
+/** A small linear congruential generator (Numerical Recipes constants), for deterministic shuffles. */
+function seededRandom(seed: number): () => number {
+  let state = seed >>> 0
+  return () => {
+    state = (Math.imul(state, 1664525) + 1013904223) >>> 0
+    return state / 4294967296
+  }
+}
+
+/** A planarized drawing before layout: its score, and the layout on demand (only the best is drawn). */
+interface Planarized {
+  crossings: number
+  /** Dropped edges inserted against the flow (the augmentation forced it; only without feasibility). */
+  against: number
+  draw: () => FallbackLayout
+}
+
+/** Steps 2 to 5 for one edge order (4 and 5 when asked to draw). */
+function planWithOrder(
   g: Digraph,
   settings: Readonly<FallbackSettings>,
   drawable: readonly number[],
@@ -114,7 +147,7 @@ function drawWithOrder(
   edgeOrder: readonly number[],
   omitted: number[],
   budget: UpwardBudget
-): FallbackLayout {
+): Planarized {
   const n = g.vertexCount
   const m = g.edgeCount
   const now = budget.now ?? (() => performance.now())
@@ -185,69 +218,72 @@ function drawWithOrder(
     if (crossings >= start) break
   }
 
-  // 4. Renumber: drawn vertices (G's, then dummies) first, drawn edges first, as the layout wants.
-  const vcount = h.rotation.length
-  const isAdded = new Uint8Array(vcount)
-  for (const v of st.addedVertices) isAdded[v] = 1
-  isAdded[bottom] = isAdded[top] = 1
-  const vmap = new Int32Array(vcount)
-  let next = 0
-  for (let v = 0; v < vcount; v++) if (!isAdded[v]) vmap[v] = next++
-  const drawnVertices = next
-  for (let v = 0; v < vcount; v++) if (isAdded[v]) vmap[v] = next++
-  const ecount = h.tail.length
-  const emap = new Int32Array(ecount)
-  let nextEdge = 0
-  for (let e = 0; e < ecount; e++) if (h.owner[e]! >= 0) emap[e] = nextEdge++
-  const drawnEdges = nextEdge
-  for (let e = 0; e < ecount; e++) if (h.owner[e]! < 0) emap[e] = nextEdge++
-  const pairs = new Array<[number, number]>(ecount)
-  for (let e = 0; e < ecount; e++) pairs[emap[e]!] = [vmap[h.tail[e]!]!, vmap[h.head[e]!]!]
-  const graph = createDigraph(vcount, pairs)
-  const rotation: Int32Array[] = new Array(vcount)
-  for (let v = 0; v < vcount; v++) rotation[vmap[v]!] = Int32Array.from(h.rotation[v]!, (e) => emap[e]!)
-  const embedding: RotationSystem = {graph, rotation}
-  const faces = traceFaces(embedding)
-  const planarized: StAugmentation = {
-    graph,
-    embedding,
-    faces,
-    outerFace: faces.faceOfDart[2 * emap[toSource]! + 1]!,
-    source: vmap[bottom]!,
-    sink: vmap[top]!,
-    addedEdges: Array.from({length: ecount - drawnEdges}, (_, i) => drawnEdges + i),
-    addedVertices: Array.from({length: vcount - drawnVertices}, (_, i) => drawnVertices + i)
-  }
-  const drawnGraph = createDigraph(drawnVertices, pairs.slice(0, drawnEdges))
-  const boxes: BoxSize[] = []
-  for (let v = 0; v < vcount; v++) if (!isAdded[v]) boxes[vmap[v]!] = v < n ? settings.boxes[v]! : h.dummy[v] === 1 ? crossingBox : bendBox
-  const planarLayout = layoutUpward({graph: drawnGraph, st: planarized, boxes, flow: settings.flow, spacing: settings.spacing})
-
-  // 5. Join the pieces of each edge through its dummies, and drop the dummies.
-  const polyOf = new Map<number, Array<[number, number]>>()
-  for (const edge of planarLayout.edges) polyOf.set(edge.edge, edge.points)
-  const outOf: number[][] = Array.from({length: drawnVertices}, () => [])
-  for (let e = 0; e < drawnEdges; e++) outOf[graph.tail[e]!]!.push(e)
-  const ownerOfNew = new Int32Array(drawnEdges)
-  for (let e = 0; e < ecount; e++) if (h.owner[e]! >= 0) ownerOfNew[emap[e]!] = h.owner[e]!
-  const edges: Layout['edges'] = []
-  for (const e of drawable) {
-    const start = flipped.has(e) !== reversedAlso.has(e) ? g.head[e]! : g.tail[e]!
-    const points: Array<[number, number]> = []
-    let at = start
-    const end = start === g.tail[e] ? g.head[e]! : g.tail[e]!
-    while (at !== end) {
-      const piece = outOf[at]!.find((f) => ownerOfNew[f] === e)
-      if (piece === undefined) throw new Error(`layoutFallback: edge ${e} lost its way`)
-      points.push(...polyOf.get(piece)!)
-      at = graph.head[piece]!
+  const draw = (): FallbackLayout => {
+    // 4. Renumber: drawn vertices (G's, then dummies) first, drawn edges first, as the layout wants.
+    const vcount = h.rotation.length
+    const isAdded = new Uint8Array(vcount)
+    for (const v of st.addedVertices) isAdded[v] = 1
+    isAdded[bottom] = isAdded[top] = 1
+    const vmap = new Int32Array(vcount)
+    let next = 0
+    for (let v = 0; v < vcount; v++) if (!isAdded[v]) vmap[v] = next++
+    const drawnVertices = next
+    for (let v = 0; v < vcount; v++) if (isAdded[v]) vmap[v] = next++
+    const ecount = h.tail.length
+    const emap = new Int32Array(ecount)
+    let nextEdge = 0
+    for (let e = 0; e < ecount; e++) if (h.owner[e]! >= 0) emap[e] = nextEdge++
+    const drawnEdges = nextEdge
+    for (let e = 0; e < ecount; e++) if (h.owner[e]! < 0) emap[e] = nextEdge++
+    const pairs = new Array<[number, number]>(ecount)
+    for (let e = 0; e < ecount; e++) pairs[emap[e]!] = [vmap[h.tail[e]!]!, vmap[h.head[e]!]!]
+    const graph = createDigraph(vcount, pairs)
+    const rotation: Int32Array[] = new Array(vcount)
+    for (let v = 0; v < vcount; v++) rotation[vmap[v]!] = Int32Array.from(h.rotation[v]!, (e) => emap[e]!)
+    const embedding: RotationSystem = {graph, rotation}
+    const faces = traceFaces(embedding)
+    const planarized: StAugmentation = {
+      graph,
+      embedding,
+      faces,
+      outerFace: faces.faceOfDart[2 * emap[toSource]! + 1]!,
+      source: vmap[bottom]!,
+      sink: vmap[top]!,
+      addedEdges: Array.from({length: ecount - drawnEdges}, (_, i) => drawnEdges + i),
+      addedVertices: Array.from({length: vcount - drawnVertices}, (_, i) => drawnVertices + i)
     }
-    edges.push({edge: e, points: start === g.tail[e] ? points : points.reverse()})
+    const drawnGraph = createDigraph(drawnVertices, pairs.slice(0, drawnEdges))
+    const boxes: BoxSize[] = []
+    for (let v = 0; v < vcount; v++) if (!isAdded[v]) boxes[vmap[v]!] = v < n ? settings.boxes[v]! : h.dummy[v] === 1 ? crossingBox : bendBox
+    const planarLayout = layoutUpward({graph: drawnGraph, st: planarized, boxes, flow: settings.flow, spacing: settings.spacing})
+
+    // 5. Join the pieces of each edge through its dummies, and drop the dummies.
+    const polyOf = new Map<number, Array<[number, number]>>()
+    for (const edge of planarLayout.edges) polyOf.set(edge.edge, edge.points)
+    const outOf: number[][] = Array.from({length: drawnVertices}, () => [])
+    for (let e = 0; e < drawnEdges; e++) outOf[graph.tail[e]!]!.push(e)
+    const ownerOfNew = new Int32Array(drawnEdges)
+    for (let e = 0; e < ecount; e++) if (h.owner[e]! >= 0) ownerOfNew[emap[e]!] = h.owner[e]!
+    const edges: Layout['edges'] = []
+    for (const e of drawable) {
+      const start = flipped.has(e) !== reversedAlso.has(e) ? g.head[e]! : g.tail[e]!
+      const points: Array<[number, number]> = []
+      let at = start
+      const end = start === g.tail[e] ? g.head[e]! : g.tail[e]!
+      while (at !== end) {
+        const piece = outOf[at]!.find((f) => ownerOfNew[f] === e)
+        if (piece === undefined) throw new Error(`layoutFallback: edge ${e} lost its way`)
+        points.push(...polyOf.get(piece)!)
+        at = graph.head[piece]!
+      }
+      edges.push({edge: e, points: start === g.tail[e] ? points : points.reverse()})
+    }
+    const nodes = planarLayout.nodes.filter((node) => node.vertex < n)
+    const layout: Layout = {flow: planarLayout.flow, width: planarLayout.width, height: planarLayout.height, nodes, edges}
+    const reversed = drawable.filter((e) => marks[e] === 'reversed' || marks[e] === 'reversed-inserted')
+    return {layout, marks, omitted, inserted: dropped, reversed, crossings, maximal: sub.maximal}
   }
-  const nodes = planarLayout.nodes.filter((node) => node.vertex < n)
-  const layout: Layout = {flow: planarLayout.flow, width: planarLayout.width, height: planarLayout.height, nodes, edges}
-  const reversed = drawable.filter((e) => marks[e] === 'reversed' || marks[e] === 'reversed-inserted')
-  return {layout, marks, omitted, inserted: dropped, reversed, crossings, maximal: sub.maximal}
+  return {crossings, against: reversedAlso.size, draw}
 }
 
 /**
