@@ -74,14 +74,19 @@ export function checkDiagram(text: string, settings: Readonly<CheckSettings> = {
   // One budget for the whole check: the fix suggestion gets what the stages left, never a fresh one.
   const now = settings.now ?? (() => performance.now())
   const deadline = now() + (settings.budgetMillis ?? defaultBudgetMillis)
-  const check = checkStages(text, {...settings, now})
+  const check = checkStages(text, {...settings, now}, deadline)
   return attachFix(check, {...settings, now, budgetMillis: Math.max(0, deadline - now())})
 }
 
-function checkStages(text: string, settings: Readonly<CheckSettings>): DiagramCheck {
+/**
+ * After parsing, no stage starts once the deadline has passed: each is linear or worse and does not
+ * look at the clock itself, so at 10^4 vertices one started late would overrun a short budget by its
+ * whole length. The answer is then `undecided`, as when the search runs out.
+ */
+function checkStages(text: string, settings: Readonly<CheckSettings>, deadline: number): DiagramCheck {
   const now = settings.now ?? (() => performance.now())
   const budgetMillis = settings.budgetMillis ?? defaultBudgetMillis
-  const deadline = now() + budgetMillis
+  const expired = () => now() > deadline
   const limits = resolveLimits(settings.limits)
   // Size limits first: the parser only sees bodies of bounded size with bounded lines.
   const textLimits = checkTextLimits(text, limits)
@@ -100,12 +105,21 @@ function checkStages(text: string, settings: Readonly<CheckSettings>): DiagramCh
     parsed.vertices.length,
     parsed.edges.map((e) => [e.from, e.to] as const)
   )
+  const undecided = (labels?: EdgeLabelGraph): DiagramCheck => ({
+    status: 'undecided',
+    diagnostics: [...diagnostics, undecidedDiagnostic(parsed, budgetMillis)],
+    parsed,
+    graph,
+    ...(labels ? {labels} : {})
+  })
+  if (expired()) return undecided()
   const acyclic = findCycle(graph)
   if (!acyclic.acyclic) {
     const failure = cycleFailure(parsed, acyclic.cycle)
     return {status: 'cycle', diagnostics: [...diagnostics, failure.diagnostic], certificate: failure.certificate, parsed, graph}
   }
 
+  if (expired()) return undecided()
   const planarity = testPlanarity(graph)
   if (!planarity.planar) {
     const failure = kuratowskiFailure(parsed, planarity.kuratowski)
@@ -118,19 +132,19 @@ function checkStages(text: string, settings: Readonly<CheckSettings>): DiagramCh
   const work = split?.graph ?? graph
   const withLabels = split ? {labels: split} : {}
 
+  if (expired()) return undecided(split)
   let levels: DiagramLevels | undefined
   if (parsed.tiers) {
     const tiered = checkTiers(parsed, graph, split, work)
     if (!tiered.ok) {
-      if (tiered.failure === undefined) {
-        return {status: 'undecided', diagnostics: [...diagnostics, undecidedDiagnostic(parsed, budgetMillis)], parsed, graph, ...withLabels}
-      }
+      if (tiered.failure === undefined) return undecided(split)
       return {status: 'not-upward', diagnostics: [...diagnostics, tiered.failure.diagnostic], certificate: tiered.failure.certificate, parsed, graph, ...withLabels}
     }
     levels = tiered.levels
   }
 
-  const upward = testUpwardPlanarity(work, {maxMillis: deadline - now(), now, preferWrittenOrder: settings.preferWrittenOrder !== false})
+  // Subdividing edges at their labels keeps the graph acyclic and planar: the upward test need not ask.
+  const upward = testUpwardPlanarity(work, {maxMillis: deadline - now(), now, preferWrittenOrder: settings.preferWrittenOrder !== false, knownAcyclicPlanar: true})
   if (upward.status === 'upward') {
     // Label vertices have one out-edge and first halves keep their edge ids, so the written order
     // reads the same on the split graph: choose there, then join.
@@ -146,9 +160,7 @@ function checkStages(text: string, settings: Readonly<CheckSettings>): DiagramCh
       ...(levels ? {levels} : {})
     }
   }
-  if (upward.status === 'undecided') {
-    return {status: 'undecided', diagnostics: [...diagnostics, undecidedDiagnostic(parsed, budgetMillis)], parsed, graph, ...withLabels}
-  }
+  if (upward.status === 'undecided') return undecided(split)
   // A level drawing is an upward drawing, so this cannot happen with levels found.
   if (levels) throw new Error('checkDiagram: a level planar diagram was found not upward planar')
   // Not upward: narrow it down to an edge-minimal obstruction with what is left of the budget.
