@@ -93,7 +93,7 @@ export function layoutFallback(g: Digraph, settings: Readonly<FallbackSettings>)
   ]
   const fixedOrders = orders.length
   const random = seededRandom(0x5eed)
-  for (let k = 0; k < shuffledOrders; k++) {
+  for (let k = 0; k < (drawable.length <= shuffleUpTo ? shuffledOrders : 0); k++) {
     const order = [...Array(drawable.length).keys()]
     for (let i = order.length - 1; i > 0; i--) {
       const j = Math.floor(random() * (i + 1))
@@ -107,6 +107,8 @@ export function layoutFallback(g: Digraph, settings: Readonly<FallbackSettings>)
     // The fixed orders share the budget among themselves; the shuffles get what they leave.
     const share = Math.max(0, deadline - now()) / ((k < fixedOrders ? fixedOrders : orders.length) - k)
     const attempt = planWithOrder(g, settings, drawable, flipped, acyclic, orders[k]!, omitted, {maxMillis: share, now})
+    // A shuffle cut short by the budget is ignored, so the budget can only remove shuffles.
+    if (k >= fixedOrders && !attempt.maximal) continue
     const score = attempt.against * 1e6 + attempt.crossings
     if (score < bestScore) {
       best = attempt
@@ -117,8 +119,12 @@ export function layoutFallback(g: Digraph, settings: Readonly<FallbackSettings>)
   return best!.draw()
 }
 
-/** Seeded shuffles after the three fixed orders (the output stays deterministic). */
+/**
+ * Seeded shuffles after the three fixed orders, for diagrams of at most `shuffleUpTo` edges: these
+ * finish well inside the default budget, so the output stays deterministic (the shuffles are seeded).
+ */
 const shuffledOrders = 8
+const shuffleUpTo = 48
 
 /** A small linear congruential generator (Numerical Recipes constants), for deterministic shuffles. */
 function seededRandom(seed: number): () => number {
@@ -132,6 +138,8 @@ function seededRandom(seed: number): () => number {
 /** A planarized drawing before layout: its score, and the layout on demand (only the best is drawn). */
 interface Planarized {
   crossings: number
+  /** False when the budget ran out while choosing the subgraph. */
+  maximal: boolean
   /** Dropped edges inserted against the flow (the augmentation forced it; only without feasibility). */
   against: number
   draw: () => FallbackLayout
@@ -283,7 +291,7 @@ function planWithOrder(
     const reversed = drawable.filter((e) => marks[e] === 'reversed' || marks[e] === 'reversed-inserted')
     return {layout, marks, omitted, inserted: dropped, reversed, crossings, maximal: sub.maximal}
   }
-  return {crossings, against: reversedAlso.size, draw}
+  return {crossings, against: reversedAlso.size, maximal: sub.maximal, draw}
 }
 
 /**
