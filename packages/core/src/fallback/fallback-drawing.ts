@@ -213,8 +213,8 @@ function planWithOrder(
     marks[item.e] = flippedTwice ? 'reversed-inserted' : 'inserted'
   }
   // Local improvement (the re-insertion step of planarization heuristics, common practice): take each
-  // inserted edge out and route it again now that all the others are in; a pass never adds crossings
-  // (the old route is still a candidate), and passes repeat while they gain, at most three.
+  // inserted edge out and route it again now that all the others are in (the search finds the fewest
+  // crossings among routes that fit the heights); passes repeat while they gain, at most three.
   for (let pass = 0; pass < 3 && order.length > 1; pass++) {
     const start = crossings
     for (const item of order) {
