@@ -1,5 +1,5 @@
 import {describe, expect, it} from 'vitest'
-import {createDigraph, testPlanarity, traceFaces, verifyKuratowski, verifyPlanarEmbedding, type Digraph, type KuratowskiSubgraph, type RotationSystem} from '@upright/core'
+import {createDigraph, nextDarts, testPlanarity, traceFaces, verifyKuratowski, verifyPlanarEmbedding, type Digraph, type KuratowskiSubgraph, type RotationSystem} from '@upright/core'
 import {prng, randomMaximalPlanar, randomNonEdge, scramble, type Edges} from './support/planarity-generators.ts'
 
 function complete(n: number): Edges {
@@ -177,6 +177,20 @@ describe('graph shapes', () => {
     expect(a).toEqual(b)
     const k1 = kuratowski(10, petersen)
     expect(kuratowski(10, petersen)).toEqual(k1)
+  })
+
+  it('its flat rotation (one buffer plus offsets) lists the same rotations as the per-vertex views, and faces agree', () => {
+    const rand = prng(21)
+    const simple = randomMaximalPlanar(200, rand)
+    const multi: Edges = [...simple, [simple[0]![1], simple[0]![0]], simple[5]!] // parallel copies
+    for (const edges of [simple, multi]) {
+      const emb = embedding(200, edges)
+      const {rotationStart: start, rotationOrder: order} = emb
+      expect(start && order).toBeTruthy()
+      for (let v = 0; v < 200; v++) expect([...emb.rotation[v]!]).toEqual([...order!.subarray(start![v], start![v + 1])])
+      // nextDarts reads the flat form when present; the same system given as views only must agree.
+      expect(nextDarts(emb)).toEqual(nextDarts({graph: emb.graph, rotation: emb.rotation}))
+    }
   })
 })
 

@@ -13,6 +13,38 @@ import type {Digraph} from '../graph/digraph.ts'
 export interface RotationSystem {
   readonly graph: Digraph
   readonly rotation: ReadonlyArray<Int32Array>
+  /**
+   * Optional flat form of the same rotations, set by producers that build one (testPlanarity):
+   * rotation[v] is rotationOrder[rotationStart[v] .. rotationStart[v + 1]).
+   */
+  readonly rotationStart?: Int32Array
+  readonly rotationOrder?: Int32Array
+}
+
+/**
+ * A rotation system held as one flat buffer plus offsets. `rotation` (one Int32Array view per vertex)
+ * is made on first access and cached: at 10^5+ vertices making and collecting those views is a visible
+ * share of the planarity test (bench/README.md, "Planarity"), and readers of the flat form never pay it.
+ */
+export function flatRotationSystem(graph: Digraph, rotationStart: Int32Array, rotationOrder: Int32Array): RotationSystem {
+  let views: Int32Array[] | undefined
+  return {
+    graph,
+    rotationStart,
+    rotationOrder,
+    get rotation(): ReadonlyArray<Int32Array> {
+      if (views === undefined) {
+        const n = graph.vertexCount
+        const bytes = rotationOrder.buffer
+        const at = rotationOrder.byteOffset
+        views = new Array<Int32Array>(n)
+        for (let v = 0; v < n; v++) {
+          views[v] = new Int32Array(bytes, at + 4 * rotationStart[v]!, rotationStart[v + 1]! - rotationStart[v]!)
+        }
+      }
+      return views
+    },
+  }
 }
 
 export interface Faces {
@@ -42,6 +74,8 @@ export function dartFrom(g: Digraph, e: number, v: number): number {
  */
 export function nextDarts(emb: RotationSystem): Int32Array {
   const g = emb.graph
+  const {rotationStart: start, rotationOrder: order} = emb
+  if (start !== undefined && order !== undefined) return nextDartsFlat(g, start, order)
   // posAt[d] = index of dart d's edge in the rotation of d's tail vertex.
   const posAt = new Int32Array(2 * g.edgeCount)
   for (let v = 0; v < g.vertexCount; v++) {
@@ -56,6 +90,23 @@ export function nextDarts(emb: RotationSystem): Int32Array {
     const i = posAt[back]!
     const e = rot[(i + 1) % rot.length]!
     next[d] = dartFrom(g, e, v)
+  }
+  return next
+}
+
+/** nextDarts on the flat form: the same answer without per-vertex views. */
+function nextDartsFlat(g: Digraph, start: Int32Array, order: Int32Array): Int32Array {
+  const m2 = 2 * g.edgeCount
+  // at[d] = position of dart d's edge in the flat order, within d's tail vertex's range.
+  const at = new Int32Array(m2)
+  for (let v = 0; v < g.vertexCount; v++) {
+    for (let i = start[v]!; i < start[v + 1]!; i++) at[dartFrom(g, order[i]!, v)] = i
+  }
+  const next = new Int32Array(m2)
+  for (let d = 0; d < m2; d++) {
+    const v = dartHead(g, d)
+    const i = at[d ^ 1]! + 1 // d ^ 1 is the dart v -> u along the same edge
+    next[d] = dartFrom(g, order[i === start[v + 1] ? start[v]! : i]!, v)
   }
   return next
 }

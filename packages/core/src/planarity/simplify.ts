@@ -25,13 +25,16 @@ export function simplify(g: Digraph): Simplified {
   const m = g.edgeCount
   const stamp = new Int32Array(n).fill(-1)
   const simpleAt = new Int32Array(n)
-  const classOf = new Int32Array(m).fill(-1) // simple edge of each non-loop g edge
+  // Simple edge of each non-loop g edge; only filled (by a second sweep) when g has parallel edges,
+  // since at 10^6 edges its scattered writes cost a visible share of the sweep.
+  let classOf: Int32Array | null = null
   const a = new Int32Array(m)
   const b = new Int32Array(m)
   const original = new Int32Array(m)
   const repTailIsA = new Uint8Array(m)
   let k = 0
-  const loops: number[] = []
+  let loops: number[] = []
+  let repeated = false // a pair seen twice: g has parallel edges
   const visit = (u: number, e: number, w: number, uIsTail: number): void => {
     if (w <= u) return // loops are taken from out-lists only; other edges from their smaller end
     if (stamp[w] !== u) {
@@ -41,23 +44,28 @@ export function simplify(g: Digraph): Simplified {
       b[k] = w
       repTailIsA[k] = uIsTail
       original[k++] = e
+    } else {
+      repeated = true
     }
-    classOf[e] = simpleAt[w]!
+    if (classOf !== null) classOf[e] = simpleAt[w]!
   }
-  for (let u = 0; u < n; u++) {
-    for (let i = g.outStart[u]!; i < g.outStart[u + 1]!; i++) {
-      const e = g.outEdges[i]!
-      if (g.head[e] === u) loops.push(e)
-      else visit(u, e, g.head[e]!, 1)
-    }
-    for (let i = g.inStart[u]!; i < g.inStart[u + 1]!; i++) {
-      const e = g.inEdges[i]!
-      if (g.tail[e] !== u) visit(u, e, g.tail[e]!, 0)
+  const sweep = (): void => {
+    for (let u = 0; u < n; u++) {
+      for (let i = g.outStart[u]!; i < g.outStart[u + 1]!; i++) {
+        const e = g.outEdges[i]!
+        if (g.head[e] === u) loops.push(e)
+        else visit(u, e, g.head[e]!, 1)
+      }
+      for (let i = g.inStart[u]!; i < g.inStart[u + 1]!; i++) {
+        const e = g.inEdges[i]!
+        if (g.tail[e] !== u) visit(u, e, g.tail[e]!, 0)
+      }
     }
   }
+  sweep()
   const parallelStart = new Int32Array(k + 1)
   // Nothing parallel (the usual case): skip two passes of random reads through classOf/original.
-  if (k + loops.length === m) {
+  if (!repeated) {
     return {
       simple: {vertexCount: n, a: k === m ? a : a.slice(0, k), b: k === m ? b : b.slice(0, k)},
       original: k === m ? original : original.slice(0, k),
@@ -67,6 +75,12 @@ export function simplify(g: Digraph): Simplified {
       repTailIsA: k === m ? repTailIsA : repTailIsA.slice(0, k),
     }
   }
+  // Same sweep again, now recording each edge's class (same k order, so the same simple edges).
+  classOf = new Int32Array(m).fill(-1)
+  stamp.fill(-1)
+  k = 0
+  loops = []
+  sweep()
   for (let e = 0; e < m; e++) {
     const s = classOf[e]!
     if (s >= 0 && original[s] !== e) parallelStart[s + 1]!++

@@ -12,7 +12,7 @@
  * Time: O(n + m) for a planar graph; the Kuratowski extraction costs more, see kuratowski.ts.
  */
 import type {Digraph} from '../graph/digraph.ts'
-import type {RotationSystem} from '../embedding/rotation-system.ts'
+import {flatRotationSystem, type RotationSystem} from '../embedding/rotation-system.ts'
 import type {PlanarityResult} from './index.ts'
 import {embedPlanarSimple, type SimpleRotation} from './left-right.ts'
 import {classifySubdivision, minimalNonplanarEdges} from './kuratowski.ts'
@@ -20,37 +20,34 @@ import {simplify, type Simplified} from './simplify.ts'
 
 export function testPlanarity(g: Digraph): PlanarityResult {
   const s = simplify(g)
-  const rot = embedPlanarSimple(s.simple)
-  if (rot !== null) return {planar: true, embedding: liftRotation(g, s, rot)}
+  // No loops and no parallel edges: the simple graph's rotation, listed by g's edge ids, is g's.
+  const plain = s.parallel.length === 0 && s.loops.length === 0
+  const rot = embedPlanarSimple(s.simple, plain ? s.original : undefined)
+  if (rot !== null) {
+    return {planar: true, embedding: plain ? flatRotationSystem(g, rot.start, rot.order) : liftRotation(g, s, rot)}
+  }
   const k = classifySubdivision(s.simple, minimalNonplanarEdges(s.simple))
   const edges = Array.from(k.edges, (e) => s.original[e]!).sort((x, y) => x - y)
   return {planar: false, kuratowski: {type: k.type, branch: k.branch, edges}}
 }
 
+/** g's rotation from the simple graph's: parallel copies beside their twin, loops twice at their vertex. */
 function liftRotation(g: Digraph, s: Simplified, rot: SimpleRotation): RotationSystem {
   const n = g.vertexCount
-  // One buffer for all rotations (2 entries per edge), each vertex a view into it: far fewer
-  // allocations than one array per vertex. Views are built with the (buffer, offset, length)
-  // constructor, which is cheaper than subarray(); at 10^5+ vertices their creation and garbage
-  // collection is a visible share of the whole test.
+  const rotationStart = new Int32Array(n + 1)
+  for (let v = 0; v < n; v++) {
+    rotationStart[v + 1] = rotationStart[v]! + g.outStart[v + 1]! - g.outStart[v]! + g.inStart[v + 1]! - g.inStart[v]!
+  }
   const buffer = new Int32Array(2 * g.edgeCount)
-  const bytes = buffer.buffer
-  const rotation: Int32Array[] = new Array<Int32Array>(n)
   const fill = new Int32Array(n)
   const {original, repTailIsA, parallelStart, parallel} = s
-  const hasParallel = parallel.length > 0
   const {start, order} = rot
-  let offset = 0
   for (let v = 0; v < n; v++) {
-    const deg = g.outStart[v + 1]! - g.outStart[v]! + g.inStart[v + 1]! - g.inStart[v]!
-    const base = offset
-    offset += deg
-    let k = base
+    let k = rotationStart[v]!
     for (let i = start[v]!; i < start[v + 1]!; i++) {
       const h = order[i]!
       const se = h >> 1
       const rep = original[se]!
-      if (!hasParallel) { buffer[k++] = rep; continue }
       // v is the simple edge's a-end when h is even; rep leaves v iff its tail is that end.
       const repLeaves = (h & 1) === 0 ? repTailIsA[se] === 1 : repTailIsA[se] === 0
       const p0 = parallelStart[se]!, p1 = parallelStart[se + 1]!
@@ -63,12 +60,11 @@ function liftRotation(g: Digraph, s: Simplified, rot: SimpleRotation): RotationS
       }
     }
     fill[v] = k
-    rotation[v] = new Int32Array(bytes, 4 * base, deg)
   }
   for (const e of s.loops) {
     const v = g.tail[e]!
     buffer[fill[v]!++] = e
     buffer[fill[v]!++] = e
   }
-  return {graph: g, rotation}
+  return flatRotationSystem(g, rotationStart, buffer)
 }
