@@ -12,6 +12,7 @@
  * Crossings are counted geometrically on both drawings (layoutStats); ours must be 0.
  */
 import {readdirSync} from 'node:fs'
+import {cpus, loadavg} from 'node:os'
 import {join} from 'node:path'
 import {dagreLayout, type Box} from './support/dagre-layout.ts'
 import {createDigraph, type Digraph} from '../packages/core/src/graph/digraph.ts'
@@ -34,6 +35,8 @@ function labelsFor(n: number): {labels: string[]; boxes: Box[]} {
   })}
 }
 const quick = process.argv.includes('--quick')
+const load = (): string => loadavg().map((x) => x.toFixed(2)).join(' ')
+console.log(`${new Date().toISOString()}, ${cpus().length} cores, load average at start ${load()}`)
 
 function time<T>(f: () => T, repeat = 1): [T, number] {
   let out!: T
@@ -54,6 +57,9 @@ interface Row {
   theirs: ReturnType<typeof layoutStats>
   /** Distinct box-centre rows: ours, dagre's. */
   rows: [number, number]
+  /** Drawing width and height: ours / dagre's. */
+  widthRatio: number
+  heightRatio: number
 }
 
 const rowsOf = (l: Layout): number => new Set(l.nodes.map((n) => n.y)).size
@@ -70,7 +76,7 @@ function compare(name: string, g: Digraph, st: StAugmentation, prepMs: number, w
   const os = layoutStats(ours)
   if (os.crossings !== 0) throw new Error(`${name}: our layout has ${os.crossings} crossings`)
   const ts = withDagre ? layoutStats(theirs) : {area: NaN, aspectRatio: NaN, bends: NaN, totalEdgeLength: NaN, crossings: NaN}
-  return {name, n: g.vertexCount, m: g.edgeCount, prepMs, oursMs, svgMs, dagreMs, ours: os, theirs: ts, rows: [rowsOf(ours), withDagre ? rowsOf(theirs) : NaN]}
+  return {name, n: g.vertexCount, m: g.edgeCount, prepMs, oursMs, svgMs, dagreMs, ours: os, theirs: ts, rows: [rowsOf(ours), withDagre ? rowsOf(theirs) : NaN], widthRatio: ours.width / theirs.width, heightRatio: ours.height / theirs.height}
 }
 
 const fmt = (x: number, d = 1): string => (Number.isFinite(x) ? x.toFixed(d) : '–')
@@ -102,6 +108,7 @@ console.log(`  layout time total: ours ${fmt(sum(north.map((r) => r.oursMs)))} m
 console.log(`  crossings: ours ${sum(north.map((r) => r.ours.crossings))}, dagre ${sum(north.map((r) => r.theirs.crossings))} in ${north.filter((r) => r.theirs.crossings > 0).length} graphs`)
 const areaRatios = north.map((r) => r.ours.area / r.theirs.area).filter(Number.isFinite)
 console.log(`  area ours/dagre: total ${fmt(ratio(north, (r) => r.ours.area, (r) => r.theirs.area), 3)}, median per graph ${fmt(median(areaRatios), 3)}, graphs where ours is larger ${areaRatios.filter((x) => x > 1).length}/${areaRatios.length}`)
+console.log(`  median per graph: width ours/dagre ${fmt(median(north.map((r) => r.widthRatio).filter(Number.isFinite)), 3)}, height ours/dagre ${fmt(median(north.map((r) => r.heightRatio).filter(Number.isFinite)), 3)}`)
 console.log(`  layers (distinct rows of boxes) ours ${sum(north.map((r) => r.rows[0]))}, dagre ${sum(north.map((r) => r.rows[1]))}`)
 console.log(`  bends ours ${sum(north.map((r) => r.ours.bends))}, dagre ${sum(north.map((r) => r.theirs.bends))}; total edge length ours/dagre ${fmt(ratio(north, (r) => r.ours.totalEdgeLength, (r) => r.theirs.totalEdgeLength), 3)}`)
 
@@ -109,7 +116,7 @@ console.log(`  bends ours ${sum(north.map((r) => r.ours.bends))}, dagre ${sum(no
 // beyond a few thousand vertices, so the two largest sizes come from the layout tests' generator
 // (randomLayoutCase: a spanning subgraph of a random planar st-graph, which is its augmentation).
 console.log('\nGenerated (one graph per size; source: R = randomUpwardPlanar, exact test + stAugment below 1,000 vertices and its own st-graph from 1,000; L = randomLayoutCase with its own st-graph)')
-console.log('n | m | source | test+augment ms | ours ms | SVG ms | dagre ms | time ratio | area ratio | ours bends | dagre bends | length ratio | dagre crossings | aspect ours / dagre | layers ours / dagre')
+console.log('n | m | source | test+augment ms | ours ms | SVG ms | dagre ms | time ratio | area ratio | width ratio | height ratio | ours bends | dagre bends | length ratio | dagre crossings | layers ours / dagre')
 const sizes = quick ? [100, 300, 1000] : [100, 300, 1000, 3000, 10000]
 for (const n of sizes) {
   let g: Digraph
@@ -136,7 +143,8 @@ for (const n of sizes) {
   const row = compare(`random ${n}`, g, st, prepMs, n <= 1000)
   console.log(
     [row.n, row.m, source, fmt(row.prepMs), fmt(row.oursMs), fmt(row.svgMs), fmt(row.dagreMs), fmt(row.oursMs / row.dagreMs, 3), fmt(row.ours.area / row.theirs.area, 3),
-      row.ours.bends, row.theirs.bends, fmt(row.ours.totalEdgeLength / row.theirs.totalEdgeLength, 3), row.theirs.crossings,
-      `${fmt(row.ours.aspectRatio, 2)} / ${fmt(row.theirs.aspectRatio, 2)}`, `${row.rows[0]} / ${row.rows[1]}`].join(' | ')
+      fmt(row.widthRatio, 3), fmt(row.heightRatio, 3), row.ours.bends, row.theirs.bends, fmt(row.ours.totalEdgeLength / row.theirs.totalEdgeLength, 3),
+      row.theirs.crossings, `${row.rows[0]} / ${row.rows[1]}`].join(' | ')
   )
 }
+console.log(`load average at end ${load()}`)
