@@ -218,10 +218,18 @@ function planWithOrder(
   for (let pass = 0; pass < 3 && order.length > 1; pass++) {
     const start = crossings
     for (const item of order) {
+      // The heights left by earlier routes can leave no route that fits them: then the edge keeps
+      // its old route (restored from a copy).
+      const saved = {h: copyEmbedding(h), height: [...height], crossings}
       crossings -= removeEdge(h, height, item.e)
       const r = insertEdge(h, height, item.u, item.v, item.e, outerDart, 2 * fromSink)
-      if (!r.ok) throw new Error(`layoutFallback: could not re-insert edge ${item.e}`)
-      crossings += r.crossings
+      if (r.ok) {
+        crossings += r.crossings
+        continue
+      }
+      Object.assign(h, saved.h)
+      height.splice(0, height.length, ...saved.height)
+      crossings = saved.crossings
     }
     if (crossings >= start) break
   }
@@ -377,6 +385,10 @@ function topologicalRank(g: Digraph): Int32Array {
     }
   }
   return rank
+}
+
+function copyEmbedding(h: EditableEmbedding): EditableEmbedding {
+  return {tail: [...h.tail], head: [...h.head], owner: [...h.owner], rotation: h.rotation.map((r) => [...r]), dummy: [...h.dummy]}
 }
 
 function addVertex(h: EditableEmbedding): number {
