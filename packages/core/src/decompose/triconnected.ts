@@ -4,12 +4,13 @@
  * ("Dividing a graph into triconnected components", SIAM J. Comput. 2, 1973) and Di Battista &
  * Tamassia ("On-line planarity testing", SIAM J. Comput. 25, 1996) for the tree. Their linear-time
  * path search is NOT used here; instead:
- * 1. parallel edges are split off as bonds (P);
- * 2. a piece whose vertices all have degree 2 is a polygon (S);
- * 3. otherwise a separation pair {x, y} is looked for as x plus an articulation point y of the piece
+ * 1. parallel edges are split off as bonds (P), and maximal chains through degree-2 vertices as
+ *    polygons (S), in rounds until neither is left (a piece of one vertex pair is a bond, a cycle a
+ *    polygon);
+ * 2. then a separation pair {x, y} is looked for as x plus an articulation point y of the piece
  *    minus x (one DFS, O(m) per x); one component of piece − {x, y} is split off with a new virtual
  *    edge {x, y} in both halves; a piece without a separation pair is triconnected (R);
- * 4. adjacent bonds and adjacent polygons are merged, which makes the result unique.
+ * 3. adjacent bonds and adjacent polygons are merged, which makes the result unique.
  * Complexity. A separation pair of a split half is one of the piece (the virtual edge stands for a
  * connected rest), so each piece keeps a cursor: vertices below it are known to lie in no
  * separation pair and are not tried again in its descendants. A vertex is shared by two halves only
@@ -54,11 +55,24 @@ interface Item {
   virtual: number
 }
 
+/** Thrown by triconnectedComponents when its `stop` callback says so; callers catch it. */
+export class DecompositionStopped extends Error {
+  constructor() {
+    super('triconnected decomposition stopped')
+  }
+}
+
 /**
  * `edges` must form a biconnected multigraph (loops not allowed) with at least two edges; a graph
- * of two vertices gives one bond. Throws RangeError otherwise (a caller's bug).
+ * of two vertices gives one bond. Throws RangeError otherwise (a caller's bug). `stop` is asked
+ * between pieces and every 32 separation-pair tries; when it returns true, DecompositionStopped is
+ * thrown (for a caller's time budget).
  */
-export function triconnectedComponents(n: number, edges: ReadonlyArray<readonly [number, number]>): TriconnectedComponents {
+export function triconnectedComponents(
+  n: number,
+  edges: ReadonlyArray<readonly [number, number]>,
+  stop?: () => boolean
+): TriconnectedComponents {
   if (edges.length < 2) throw new RangeError('triconnectedComponents needs at least two edges')
   for (const [a, b] of edges) {
     if (a === b || a < 0 || b < 0 || a >= n || b >= n) throw new RangeError(`bad edge (${a}, ${b})`)
@@ -67,35 +81,87 @@ export function triconnectedComponents(n: number, edges: ReadonlyArray<readonly 
   const finals: Array<{kind: ComponentKind; items: Item[]}> = []
   const work: Array<{items: Item[]; cursor: number}> = [{items: edges.map(([a, b], i) => ({a, b, real: i, virtual: -1})), cursor: 0}]
 
+  let tries = 0
   while (work.length > 0) {
+    if (stop?.() === true) throw new DecompositionStopped()
     const piece = work.pop()!
     let items = piece.items
-    // 1. bonds: group items by vertex pair
-    const groups = new Map<string, Item[]>()
-    for (const it of items) {
-      const key = it.a < it.b ? `${it.a},${it.b}` : `${it.b},${it.a}`
-      const g = groups.get(key)
-      if (g === undefined) groups.set(key, [it])
-      else g.push(it)
+    // 1-2. series-parallel rounds: split off bonds of parallel items and polygons of degree-2 chains
+    // until neither is left (each split is at a separation pair, so the cursor stays valid)
+    let done: ComponentKind | null = null
+    for (;;) {
+      const groups = new Map<number, Item[]>()
+      for (const it of items) {
+        const key = it.a < it.b ? it.a * n + it.b : it.b * n + it.a
+        const g = groups.get(key)
+        if (g === undefined) groups.set(key, [it])
+        else g.push(it)
+      }
+      if (groups.size === 1) {
+        done = 'P'
+        break
+      }
+      let changed = false
+      if (groups.size < items.length) {
+        changed = true
+        const kept: Item[] = []
+        for (const g of groups.values()) {
+          if (g.length === 1) {
+            kept.push(g[0]!)
+            continue
+          }
+          const v = virtuals++
+          finals.push({kind: 'P', items: [...g, {a: g[0]!.a, b: g[0]!.b, real: -1, virtual: v}]})
+          kept.push({a: g[0]!.a, b: g[0]!.b, real: -1, virtual: v})
+        }
+        items = kept
+      }
+      const at = new Map<number, number[]>()
+      items.forEach((it, i) => {
+        for (const x of [it.a, it.b]) {
+          const l = at.get(x)
+          if (l === undefined) at.set(x, [i])
+          else l.push(i)
+        }
+      })
+      let branch = false
+      for (const l of at.values()) if (l.length !== 2) branch = true
+      if (!branch) {
+        done = 'S'
+        break
+      }
+      // maximal chains through degree-2 vertices, each between two branch vertices
+      const gone = new Uint8Array(items.length)
+      const added: Item[] = []
+      for (const [v, l] of at) {
+        if (l.length !== 2 || gone[l[0]!]) continue
+        const chain: number[] = []
+        const ends: number[] = []
+        for (const first of l) {
+          let item = first, x = v
+          for (;;) {
+            chain.push(item)
+            const it = items[item]!
+            x = it.a === x ? it.b : it.a
+            const lx = at.get(x)!
+            if (lx.length !== 2) break
+            item = lx[0] === item ? lx[1]! : lx[0]!
+          }
+          ends.push(x)
+        }
+        for (const i of chain) gone[i] = 1
+        const w = virtuals++
+        finals.push({kind: 'S', items: [...chain.map((i) => items[i]!), {a: ends[0]!, b: ends[1]!, real: -1, virtual: w}]})
+        added.push({a: ends[0]!, b: ends[1]!, real: -1, virtual: w})
+        changed = true
+      }
+      if (added.length > 0) items = [...items.filter((_, i) => !gone[i]), ...added]
+      if (!changed) break
     }
-    if (groups.size === 1) {
-      finals.push({kind: 'P', items})
+    if (done !== null) {
+      finals.push({kind: done, items})
       continue
     }
-    if (groups.size < items.length) {
-      const kept: Item[] = []
-      for (const g of groups.values()) {
-        if (g.length === 1) {
-          kept.push(g[0]!)
-          continue
-        }
-        const v = virtuals++
-        finals.push({kind: 'P', items: [...g, {a: g[0]!.a, b: g[0]!.b, real: -1, virtual: v}]})
-        kept.push({a: g[0]!.a, b: g[0]!.b, real: -1, virtual: v})
-      }
-      items = kept
-    }
-    // 2. polygons
     const local = new Map<number, number>()
     const verts: number[] = []
     for (const it of items) {
@@ -111,10 +177,6 @@ export function triconnectedComponents(n: number, edges: ReadonlyArray<readonly 
     for (const it of items) {
       deg[local.get(it.a)!]!++
       deg[local.get(it.b)!]!++
-    }
-    if (deg.every((d) => d === 2)) {
-      finals.push({kind: 'S', items})
-      continue
     }
     // 3. a separation pair, trying vertices in increasing id from the cursor
     const adjStart = new Int32Array(k + 1)
@@ -132,6 +194,7 @@ export function triconnectedComponents(n: number, edges: ReadonlyArray<readonly 
     const order = verts.map((_, i) => i).filter((i) => verts[i]! >= piece.cursor).sort((p, q) => verts[p]! - verts[q]!)
     let found: {x: number; y: number} | null = null
     for (const x of order) {
+      if ((++tries & 31) === 0 && stop?.() === true) throw new DecompositionStopped()
       const y = articulationWithout(k, adjStart, adj, other, x)
       if (y !== -1) {
         found = {x, y}

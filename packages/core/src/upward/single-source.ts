@@ -26,9 +26,10 @@
 import {createDigraph, type Digraph} from '../graph/digraph.ts'
 import {findCycle} from '../acyclic/find-cycle.ts'
 import {blocksOf} from '../decompose/blocks.ts'
-import {triconnectedComponents, type TriconnectedComponents} from '../decompose/triconnected.ts'
+import {DecompositionStopped, triconnectedComponents, type TriconnectedComponents} from '../decompose/triconnected.ts'
 import {testPlanarity} from '../planarity/test-planarity.ts'
-import {traceFaces} from '../embedding/rotation-system.ts'
+import {dartHead, nextDarts, traceFaces, type Faces, type RotationSystem} from '../embedding/rotation-system.ts'
+import {isBimodal} from './bimodal.ts'
 import {testUpwardEmbedded} from './fixed-embedding.ts'
 
 /** The source of g when g is acyclic with exactly one source and every vertex has an edge, else -1. */
@@ -71,8 +72,21 @@ export function isUpwardPlanarSingleSource(g: Digraph): boolean {
  * As isUpwardPlanarSingleSource, and for "yes" a bimodal planar rotation system of g (edge ids of g
  * per vertex, clockwise) that has an upward drawing; null for "no". The large angles and outer face
  * are left to the fixed-embedding test (fixed-embedding.ts), which the tests run on every answer.
+ * With `expired` (a time budget) it may answer 'budget' instead: it asks between blocks, between
+ * skeletons and inside the decomposition.
  */
-export function upwardRotationSingleSource(g: Digraph): number[][] | null {
+export function upwardRotationSingleSource(g: Digraph): number[][] | null
+export function upwardRotationSingleSource(g: Digraph, expired: () => boolean): number[][] | null | 'budget'
+export function upwardRotationSingleSource(g: Digraph, expired?: () => boolean): number[][] | null | 'budget' {
+  try {
+    return rotationOrNull(g, expired ?? (() => false))
+  } catch (e) {
+    if (e instanceof DecompositionStopped) return 'budget'
+    throw e
+  }
+}
+
+function rotationOrNull(g: Digraph, expired: () => boolean): number[][] | null {
   if (!findCycle(g).acyclic) throw new RangeError('upwardRotationSingleSource needs an acyclic digraph')
   let s = -1
   for (let v = 0; v < g.vertexCount; v++) {
@@ -88,7 +102,8 @@ export function upwardRotationSingleSource(g: Digraph): number[][] | null {
   const embedded: Array<{edges: number[]; rot: Map<number, number[]>; largeAt: Map<number, number>; source: number}> = []
   for (const block of blocks) {
     const pairs = block.map((e) => x.edges[e]!)
-    const r = block.length === 1 ? singleEdgeBlock(pairs[0]!) : embedBlock(pairs)
+    if (expired()) throw new DecompositionStopped()
+    const r = block.length === 1 ? singleEdgeBlock(pairs[0]!) : embedBlock(pairs, expired)
     if (r === null) return null
     // block-local edge ids -> X edge ids
     const rot = new Map<number, number[]>()
@@ -217,7 +232,7 @@ interface SkeletonInfo {
  * large angle took in the skeleton above (the paper's embedding step), and the skeletons are
  * spliced along their virtual edges.
  */
-function embedBlock(edges: ReadonlyArray<readonly [number, number]>): BlockEmbedding | null {
+function embedBlock(edges: ReadonlyArray<readonly [number, number]>, expired: () => boolean): BlockEmbedding | null {
   const indeg = new Map<number, number>(), outdeg = new Map<number, number>()
   for (const [a, b] of edges) {
     outdeg.set(a, (outdeg.get(a) ?? 0) + 1)
@@ -229,7 +244,7 @@ function embedBlock(edges: ReadonlyArray<readonly [number, number]>): BlockEmbed
   for (const [v, d] of indeg) if (d === 0) s = v
   let maxVertex = 0
   for (const [a, b] of edges) maxVertex = Math.max(maxVertex, a, b)
-  const tc = triconnectedComponents(maxVertex + 1, edges)
+  const tc = triconnectedComponents(maxVertex + 1, edges, expired)
   const tree = rootTree(tc)
   const down = pertinentDegrees(tc, tree, edges, s)
 
@@ -254,6 +269,7 @@ function embedBlock(edges: ReadonlyArray<readonly [number, number]>): BlockEmbed
   const infos: SkeletonInfo[] = []
 
   for (let c = 0; c < C; c++) {
+    if ((c & 63) === 0 && expired()) throw new DecompositionStopped()
     const comp = tc.components[c]!
     const local = new Map<number, number>()
     const verts: number[] = []
@@ -307,10 +323,11 @@ function embedBlock(edges: ReadonlyArray<readonly [number, number]>): BlockEmbed
     info.rotation = planar.embedding.rotation.map((r) => Int32Array.from(r))
     const emb = {graph: sk, rotation: info.rotation}
     const faces = traceFaces(emb)
+    const possible = possibleOuterFaces(emb, faces)
     const marked = new Uint8Array(comp.edges.length)
     let any = false
     for (let f = 0; f < faces.darts.length; f++) {
-      if (!testUpwardEmbedded(emb, {outerFace: f}).ok) continue
+      if (!possible[f]) continue
       any = true
       for (const d of faces.darts[f]!) marked[stOwner[d >> 1]!] = 1
     }
@@ -343,6 +360,75 @@ function embedBlock(edges: ReadonlyArray<readonly [number, number]>): BlockEmbed
   }
   if (rootComp === -1) return null
   return assemble(tc, infos, edges, s, rootComp, rootEdge)
+}
+
+/**
+ * The faces that can be the outer face of an upward drawing of an embedded single-source digraph
+ * (connected, acyclic), in O(m α(m)): the face-sink characterization of the 1998 paper (their
+ * "face-sink graph"), in this form: with every vertex bimodal, join each face to every sink with an
+ * angle in it, and count in each face its sink-switch angles at vertices that are not sinks (each
+ * must be that face's one small top). The embedding is upward with outer face h iff these joins make
+ * a forest, h's tree holds no such top, every other tree exactly one, and the source is on h.
+ * (Every inner face has exactly one small sink-switch angle and the outer face none; a sink has one
+ * large angle; the counts balance by Euler's formula.) With several sources it falls back to the
+ * flow test per face.
+ */
+function possibleOuterFaces(emb: RotationSystem, faces: Faces): Uint8Array {
+  const g = emb.graph
+  const F = faces.darts.length
+  const out = new Uint8Array(F)
+  let source = -1, sources = 0
+  for (let v = 0; v < g.vertexCount; v++) {
+    if (g.inStart[v + 1] === g.inStart[v] && g.outStart[v + 1] !== g.outStart[v]) {
+      source = v
+      sources++
+    }
+  }
+  if (sources !== 1) {
+    for (let f = 0; f < F; f++) out[f] = testUpwardEmbedded(emb, {outerFace: f}).ok ? 1 : 0
+    return out
+  }
+  if (!isBimodal(emb).ok) return out
+  const next = nextDarts(emb)
+  // union-find over faces 0..F-1 and sinks F + v
+  const parent = new Int32Array(F + g.vertexCount)
+  for (let i = 0; i < parent.length; i++) parent[i] = i
+  const find = (i: number): number => {
+    while (parent[i] !== i) {
+      parent[i] = parent[parent[i]!]!
+      i = parent[i]!
+    }
+    return i
+  }
+  const tops = new Int32Array(F + g.vertexCount)
+  for (let d = 0; d < 2 * g.edgeCount; d++) {
+    // the angle named by d at v = head of d: a sink switch when d's edge and next[d]'s edge both enter v
+    if ((d & 1) !== 0 || (next[d]! & 1) !== 1) continue
+    const v = g.head[d >> 1]!
+    const f = faces.faceOfDart[d]!
+    if (g.outStart[v + 1] === g.outStart[v]) {
+      const a = find(f), b = find(F + v)
+      if (a === b) return out // a cycle: no outer face works
+      parent[a] = b
+      tops[b]! += tops[a]!
+    } else {
+      tops[find(f)]!++
+    }
+  }
+  let free = -1
+  for (let f = 0; f < F; f++) {
+    const r = find(f)
+    if (tops[r]! > 1) return out
+    if (tops[r] === 0) {
+      if (free !== -1 && free !== r) return out
+      free = r
+    }
+  }
+  if (free === -1) return out
+  for (let d = 0; d < 2 * g.edgeCount; d++) {
+    if (dartHead(g, d) === source && find(faces.faceOfDart[d]!) === free) out[faces.faceOfDart[d]!] = 1
+  }
+  return out
 }
 
 type Side = 'left' | 'right'
