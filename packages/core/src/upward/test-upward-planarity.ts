@@ -33,6 +33,8 @@ import type {RotationSystem} from '../embedding/rotation-system.ts'
 import {traceFaces} from '../embedding/rotation-system.ts'
 import {findCycle} from '../acyclic/find-cycle.ts'
 import {testPlanarity} from '../planarity/test-planarity.ts'
+import {isPlanarSimple} from '../planarity/left-right.ts'
+import {simplify} from '../planarity/simplify.ts'
 import {reduceComponent, type Reduction} from './reduce.ts'
 import {growBack, writtenKeys, type AngleEmbedding} from './grow-back.ts'
 import {assignLargeAngles} from './large-angle-assignment.ts'
@@ -51,6 +53,12 @@ export interface UpwardBudget {
    * tries corners in written order first (a tie-break; the answer is the same). Default false.
    */
   preferWrittenOrder?: boolean
+  /**
+   * The caller has found g acyclic and planar already (checkDiagram has, on g or on a graph g
+   * subdivides): skip both linear tests, which at 10^4 vertices cost about as much as all else
+   * before the search and would run past a short budget without looking at the clock.
+   */
+  knownAcyclicPlanar?: boolean
 }
 
 /**
@@ -87,14 +95,14 @@ const methodRank: readonly UpwardMethod[] = ['reduced', 'st', 'sources-sinks', '
  * Parallel edges are fine (a copy beside its twin changes nothing).
  */
 export function testUpwardPlanarity(g: Digraph, budget?: Readonly<UpwardBudget>): UpwardTestResult {
-  if (!findCycle(g).acyclic) throw new RangeError('testUpwardPlanarity needs an acyclic digraph')
+  const known = budget?.knownAcyclicPlanar === true
+  if (!known && !findCycle(g).acyclic) throw new RangeError('testUpwardPlanarity needs an acyclic digraph')
   const now = budget?.now ?? (() => performance.now())
   const deadline = now() + (budget?.maxMillis ?? 3000)
   const expired = () => now() > deadline
   let searchNodes = 0
 
-  const planar = testPlanarity(g)
-  if (!planar.planar) return {status: 'not-upward', reason: 'nonplanar', method: 'planarity', searchNodes}
+  if (!known && !testPlanarity(g).planar) return {status: 'not-upward', reason: 'nonplanar', method: 'planarity', searchNodes}
 
   const n = g.vertexCount
   const rot: number[][] = Array.from({length: n}, () => [])
@@ -155,6 +163,8 @@ function decideCore(red: Reduction, expired: () => boolean, preferWrittenOrder: 
   if (m === 0) {
     return {kind: 'yes', method: 'reduced', rot: Array.from({length: k}, () => []), large: new Int32Array(k).fill(-1), outerVertex: -1, nodes: 0}
   }
+  // The fast paths below are linear or O(F·m) each, and do not look at the clock: start none late.
+  if (expired()) return {kind: 'budget', nodes: 0}
   const indeg = new Int32Array(k), outdeg = new Int32Array(k)
   for (let e = 0; e < m; e++) {
     outdeg[tail[e]!]!++
@@ -206,8 +216,12 @@ function decideCore(red: Reduction, expired: () => boolean, preferWrittenOrder: 
       // so is the core inside it (sufficient only, so a failure falls through to the search).
       const S = k, T = k + 1
       const ends: Array<[number, number]> = [...sources.map((v): [number, number] => [S, v]), ...sinks.map((v): [number, number] => [v, T]), [S, T]]
-      const outer = testPlanarity(createDigraph(k + 2, [...pairs, ...ends]))
-      if (outer.planar) {
+      // A yes/no test first: when it is not planar the Kuratowski subgraph testPlanarity would extract
+      // (superlinear, kuratowski.ts) is never used.
+      if (expired()) return {kind: 'budget', nodes: 0}
+      const outerGraph = createDigraph(k + 2, [...pairs, ...ends])
+      const outer = isPlanarSimple(simplify(outerGraph).simple) ? testPlanarity(outerGraph) : undefined
+      if (outer?.planar) {
         const inside = tryEmbedding(outer.embedding)
         if (inside !== null) return {kind: 'yes', method: 'extremes-outside', rot: inside.rot, large: inside.angles.large, outerVertex: inside.angles.outerVertex, nodes: 0}
       }
