@@ -4,13 +4,14 @@
  * drawing both with the layout and the independent geometric checker; `preferWrittenOrder` never
  * scores worse than the embedding found, and keeps `a -> b, c` with b left of c.
  *
- * Figures, share of vertices with two or more out-edges that show them left to right in written order
- * (600 random acyclic digraphs of 4-15 vertices, edge probability 0.25, lines shuffled, seed 4242, as
- * in randomTexts; and the diagrams of site-demo/pages plus fixtures/golden), measured 2026-12-02:
- * before the tie-break (mirror only, and off) 34.0% random, 32 of 59 demo; with grow-back only
- * (`preferWrittenOrder: false` now) 43.4%; with all of it (the default) 63.0% random, 65 of 66 demo.
- * A capped search in written order run before the fast paths was tried and kept less (60.5%): the
- * planarity embedding already reads adjacency lists in written order.
+ * Figures: `npx --yes pnpm@12.4.2 bench written-order` (bench/written-order.ts: share of vertices with
+ * two or more out-edges drawn left to right as written; site-demo and golden diagrams, and 600 random
+ * digraphs like randomTexts below). 2026-12-02, load average 19 on 2 cores: demo + golden 65 of 77
+ * off, 76 of 77 on; random 43.1% off, 63.0% on. Before this tie-break (commit fe7161d, mirror only and
+ * off by default; a scratch run of the same cases, not rerunnable from this tree): 32 of 59 demo +
+ * golden (fewer demo pages then), 34.0% random. A capped search in written order run before the fast
+ * paths was tried and kept less (60.5%): the planarity embedding already reads adjacency lists in
+ * written order.
  */
 import {describe, expect, it} from 'vitest'
 import {checkDiagram, type Digraph, type UpwardEmbedding} from '@upright/core'
