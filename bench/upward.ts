@@ -49,7 +49,9 @@ const rows = graphs.map(({file, g}) => {
   const ms = time(() => testUpwardPlanarity(g, {maxMillis: budget}))
   const ref = time(() => testPlanarity(g))
   const label = r.status === 'undecided' ? 'undecided' : r.status === 'upward' ? 'upward' : r.reason === 'nonplanar' ? 'nonplanar' : 'planar, not upward'
-  return {file, n: g.vertexCount, ms, ref, label, method: r.status === 'undecided' ? 'budget' : r.method}
+  let sources = 0
+  for (let v = 0; v < g.vertexCount; v++) if (g.inStart[v + 1] === g.inStart[v]) sources++
+  return {file, n: g.vertexCount, ms, ref, label, method: r.status === 'undecided' ? 'budget' : r.method, single: sources === 1}
 })
 
 const stats = (xs: number[]) => {
@@ -81,6 +83,12 @@ console.log('\nby deciding method')
 for (const method of [...new Set(rows.map((r) => r.method))].sort()) {
   console.log(line(method, rows.filter((r) => r.method === method).map((r) => r.ms)))
 }
+// One source: decided in polynomial time (single-source.ts) unless reductions settle them first.
+console.log('\nsingle-source DAGs, by deciding method')
+for (const method of [...new Set(rows.filter((r) => r.single).map((r) => r.method))].sort()) {
+  console.log(line(method, rows.filter((r) => r.single && r.method === method).map((r) => r.ms)))
+}
+console.log(line('all single-source', rows.filter((r) => r.single).map((r) => r.ms)))
 const ref = stats(rows.map((r) => r.ref)).total
 const tot = stats(rows.map((r) => r.ms)).total
 console.log(`\nreference: planarity test alone, total ${ref.toFixed(1)} ms; upward / planarity = ${(tot / ref).toFixed(2)}`)

@@ -11,9 +11,9 @@
  * condition over all outer faces, with restarts (embedding-search.ts). On the North DAGs the search
  * cores have at most 33 vertices and need a few hundred nodes at most, so a SAT encoding
  * (Chimani & Zeranski, GD 2012) was not needed and no solver dependency is taken.
- * Single-source digraphs take the same route: the linear-time algorithm of Bertolazzi,
- * Di Battista, Mannino & Tamassia (SIAM J. Comput. 27, 1998) is not implemented, so their worst
- * case is exponential too (bounded by the budget).
+ * Cores with one source (and several sinks) never reach the search: they go to the single-source
+ * test after Bertolazzi, Di Battista, Mannino & Tamassia (SIAM J. Comput. 27, 1998) in
+ * single-source.ts, polynomial (O(n²) here; theirs is linear), also bounded by the budget.
  */
 export type {UpwardEmbedding} from './upward-embedding.ts'
 export {isBimodal, isBimodalAt, type BimodalResult} from './bimodal.ts'
@@ -25,3 +25,4 @@ export {
   type UpwardTestResult,
 } from './test-upward-planarity.ts'
 export {findMinimalObstruction, type MinimalObstructionResult} from './minimal-obstruction.ts'
+export {isUpwardPlanarSingleSource, upwardRotationSingleSource} from './single-source.ts'
