@@ -7,16 +7,22 @@
  * 1. parallel edges are split off as bonds (P), and maximal chains through degree-2 vertices as
  *    polygons (S), in rounds until neither is left (a piece of one vertex pair is a bond, a cycle a
  *    polygon);
- * 2. then a separation pair {x, y} is looked for as x plus an articulation point y of the piece
- *    minus x (one DFS, O(m) per x); one component of piece − {x, y} is split off with a new virtual
- *    edge {x, y} in both halves; a piece without a separation pair is triconnected (R);
+ * 2. then a separation pair {x, y} is looked for, x in increasing id: on a planar piece, y among
+ *    the vertices sharing faces with x in a planar embedding of the piece, confirmed by one search
+ *    (planarPairFinder); otherwise y as an articulation point of the piece minus x (one DFS, O(m)
+ *    per x). One component of piece − {x, y} is split off with a new virtual edge {x, y} in both
+ *    halves; a piece without a separation pair is triconnected (R);
  * 3. adjacent bonds and adjacent polygons are merged, which makes the result unique.
  * Complexity. A separation pair of a split half is one of the piece (the virtual edge stands for a
  * connected rest), so each piece keeps a cursor: vertices below it are known to lie in no
  * separation pair and are not tried again in its descendants. A vertex is shared by two halves only
  * when it is a pole of the split, so the failed tries number O(n + splits) and the successful ones
- * O(splits) = O(m), each costing O(m): O(m²) time in all, O(n²) on planar graphs.
+ * O(splits) = O(m), each costing O(m): O(m²) time in all, O(n²) on planar graphs (plus, on
+ * planar pieces, Σ over faces of their size squared per piece for the candidates).
  */
+import {createDigraph} from '../graph/digraph.ts'
+import {dartHead, traceFaces} from '../embedding/rotation-system.ts'
+import {testPlanarity} from '../planarity/test-planarity.ts'
 
 /** An edge of a skeleton: a real edge of the input (virtual = -1) or half of a virtual pair. */
 export interface SkeletonEdge {
@@ -193,9 +199,12 @@ export function triconnectedComponents(
     }
     const order = verts.map((_, i) => i).filter((i) => verts[i]! >= piece.cursor).sort((p, q) => verts[p]! - verts[q]!)
     let found: {x: number; y: number} | null = null
+    // On a planar piece only vertices sharing faces with x can pair with it (below); else every x
+    // is tried with one DFS of the piece minus x.
+    const pairFor = planarPairFinder(k, items, local, adjStart, adj, other)
     for (const x of order) {
       if ((++tries & 31) === 0 && stop?.() === true) throw new DecompositionStopped()
-      const y = articulationWithout(k, adjStart, adj, other, x)
+      const y = pairFor !== null ? pairFor(x) : articulationWithout(k, adjStart, adj, other, x)
       if (y !== -1) {
         found = {x, y}
         break
@@ -238,6 +247,77 @@ export function triconnectedComponents(
   }
 
   return merge(finals, virtuals)
+}
+
+/**
+ * For a planar piece (simple, biconnected): a function giving for x some y with {x, y} a
+ * separation pair, or -1. In a plane biconnected simple graph, {x, y} separates iff x and y share
+ * two faces (three if they are adjacent, the two beside their edge not counting): a closed curve
+ * through x, y and the two faces then has vertices on both sides (Whitney; common practice in
+ * planar graph algorithms). Candidates are read off the faces around x (Σ over faces of their
+ * size squared for all x) and each is confirmed by a search of the piece minus {x, y}, so a wrong
+ * candidate costs time, never a wrong split. null when the piece is not planar.
+ */
+function planarPairFinder(
+  k: number,
+  items: readonly Item[],
+  local: ReadonlyMap<number, number>,
+  adjStart: Int32Array,
+  adj: Int32Array,
+  other: (item: number, v: number) => number
+): ((x: number) => number) | null {
+  const pg = createDigraph(k, items.map((it) => [local.get(it.a)!, local.get(it.b)!] as [number, number]))
+  const planar = testPlanarity(pg)
+  if (!planar.planar) return null
+  const faces = traceFaces({graph: pg, rotation: planar.embedding.rotation})
+  const F = faces.darts.length
+  // vertices of each face, and faces around each vertex (each once)
+  const faceVerts: number[][] = faces.darts.map((ds) => [...new Set(Array.from(ds, (d) => dartHead(pg, d)))])
+  const facesAt: number[][] = Array.from({length: k}, () => [])
+  for (let f = 0; f < F; f++) for (const v of faceVerts[f]!) facesAt[v]!.push(f)
+  const count = new Int32Array(k)
+  const stamp = new Int32Array(k).fill(-1)
+  const adjacent = new Int32Array(k).fill(-1)
+  const seen = new Int32Array(k).fill(-1)
+  let round = 0
+  const separates = (x: number, y: number): boolean => {
+    round++
+    seen[x] = seen[y] = round
+    let start = 0
+    while (start === x || start === y) start++
+    const stack = [start]
+    seen[start] = round
+    let reached = 3
+    while (stack.length > 0) {
+      const v = stack.pop()!
+      for (let p = adjStart[v]!; p < adjStart[v + 1]!; p++) {
+        const w = other(adj[p]!, v)
+        if (seen[w] !== round) {
+          seen[w] = round
+          reached++
+          stack.push(w)
+        }
+      }
+    }
+    return reached < k
+  }
+  return (x: number) => {
+    for (let p = adjStart[x]!; p < adjStart[x + 1]!; p++) adjacent[other(adj[p]!, x)] = x
+    const cands: number[] = []
+    for (const f of facesAt[x]!) {
+      for (const y of faceVerts[f]!) {
+        if (y === x) continue
+        if (stamp[y] !== x) {
+          stamp[y] = x
+          count[y] = 0
+        }
+        count[y]!++
+        if (count[y] === (adjacent[y] === x ? 3 : 2)) cands.push(y)
+      }
+    }
+    for (const y of cands) if (separates(x, y)) return y
+    return -1
+  }
 }
 
 /**
