@@ -118,6 +118,7 @@ console.log(`  bends ours ${sum(north.map((r) => r.ours.bends))}, dagre ${sum(no
 console.log('\nGenerated (one graph per size; source: R = randomUpwardPlanar, exact test + stAugment below 1,000 vertices and its own st-graph from 1,000; L = randomLayoutCase with its own st-graph)')
 console.log('n | m | source | test+augment ms | ours ms | SVG ms | dagre ms | time ratio | area ratio | width ratio | height ratio | ours bends | dagre bends | length ratio | dagre crossings | layers ours / dagre')
 const sizes = quick ? [100, 300, 1000] : [100, 300, 1000, 3000, 10000]
+let target: {g: Digraph; st: StAugmentation} | undefined
 for (const n of sizes) {
   let g: Digraph
   let st: StAugmentation
@@ -146,5 +147,22 @@ for (const n of sizes) {
       fmt(row.widthRatio, 3), fmt(row.heightRatio, 3), row.ours.bends, row.theirs.bends, fmt(row.ours.totalEdgeLength / row.theirs.totalEdgeLength, 3),
       row.theirs.crossings, `${row.rows[0]} / ${row.rows[1]}`].join(' | ')
   )
+  if (n === 1000) target = {g, st}
+}
+
+// The target "a 1,000-vertex diagram to optimized SVG in < 1 s": layout + renderSvg on the 1,000-vertex
+// graph above, five times; the best run is the figure least disturbed by other load on a shared machine.
+if (target) {
+  const {g, st} = target
+  const {labels, boxes} = labelsFor(g.vertexCount)
+  const runs: Array<[number, number]> = []
+  for (let i = 0; i < 5; i++) {
+    const [layout, layoutMs] = time(() => layoutUpward({graph: g, st, boxes, flow: 'up'}))
+    const [, svgMs] = time(() => renderSvg({layout, graph: g, labels}))
+    runs.push([layoutMs, svgMs])
+  }
+  runs.sort((a, b) => a[0] + a[1] - b[0] - b[1])
+  const show = ([l, s]: [number, number]): string => `layout ${fmt(l)} ms + SVG ${fmt(s)} ms = ${fmt(l + s)} ms`
+  console.log(`\n1,000 vertices to optimized SVG, 5 runs: best ${show(runs[0]!)}, median ${show(runs[2]!)}`)
 }
 console.log(`load average at end ${load()}`)
