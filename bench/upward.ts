@@ -1,5 +1,5 @@
 /**
- * `pnpm bench upward [--budget MS] [--runs K]`: the exact upward-planarity test on every North DAG
+ * `pnpm bench upward [--budget MS] [--runs K] [--stress] [--thinned N]`: the exact upward-planarity test on every North DAG
  * (/work/shared/data/north, see its SOURCE.md), timed per graph. Prints median, p95, max and total,
  * the same per size decade, counts per answer and per deciding method, and as a reference in the same
  * run the linear-time planarity test on the same graphs (ratio of totals).
@@ -28,6 +28,37 @@ function read(file: string): Digraph {
     edges.push([ids.get(s)!, ids.get(t)!])
   }
   return createDigraph(ids.size, edges)
+}
+
+// --thinned N: only time the single-source route on bench/growth.ts's "thinned" family (a k×k grid
+// with one diagonal per cell, seed 78, every vertex keeping one random in-edge and each other edge
+// surviving with probability 1/2, seed 79: one source, many sinks, upward planar), budget --budget.
+const thinned = arg('--thinned', 0)
+if (thinned > 0) {
+  const {mulberry32} = await import('../test/support/random.ts')
+  const k = Math.max(2, Math.round(Math.sqrt(thinned)))
+  const rnd = mulberry32(78)
+  const id = (i: number, j: number) => i + k * j
+  const all: Array<[number, number]> = []
+  for (let j = 0; j < k; j++) {
+    for (let i = 0; i < k; i++) {
+      if (i + 1 < k) all.push([id(i, j), id(i + 1, j)])
+      if (j + 1 < k) all.push([id(i, j), id(i, j + 1)])
+      if (i + 1 < k && j + 1 < k) all.push(rnd() < 0.5 ? [id(i, j), id(i + 1, j + 1)] : [id(i + 1, j), id(i, j + 1)])
+    }
+  }
+  const keepRnd = mulberry32(79)
+  const incoming: number[][] = Array.from({length: k * k}, () => [])
+  all.forEach(([, h], e) => incoming[h]!.push(e))
+  const keep = new Uint8Array(all.length)
+  for (const ins of incoming) if (ins.length > 0) keep[ins[Math.floor(keepRnd() * ins.length)]!] = 1
+  for (let e = 0; e < all.length; e++) if (!keep[e] && keepRnd() < 0.5) keep[e] = 1
+  const g = createDigraph(k * k, all.filter((_, e) => keep[e]))
+  const t0 = performance.now()
+  const r = testUpwardPlanarity(g, {maxMillis: budget})
+  const ms = performance.now() - t0
+  console.log(`thinned single-source grid: ${g.vertexCount} vertices, ${g.edgeCount} edges, budget ${budget} ms: ${r.status}${r.status === 'undecided' ? '' : ` (${r.method})`} in ${(ms / 1000).toFixed(2)} s`)
+  process.exit(0)
 }
 
 const files = readdirSync(dir).filter((f) => f.endsWith('.graphml')).sort()
