@@ -18,9 +18,10 @@
  * out when there is a single bottom (top) L, which is then the source (sink) itself. Components of a
  * disconnected graph, and isolated vertices, stand side by side between the same s and t.
  *
- * Each face's switch list is processed with a doubly linked list that steps back two places after a
- * saturation, so the whole augmentation is O(n + m) (linear) given the upward embedding. The new
- * edges may be parallel to existing ones; the input is never mutated.
+ * Each face's switch list is a doubly linked list. By default the saturations are chosen to keep H
+ * shallow (saturateShallow: a heap per face, O((n + m) log(n + m)) in all); with an allowEdge hook
+ * they are taken in walk order, stepping back two places after each (O(n + m)). The new edges may be
+ * parallel to existing ones; the input is never mutated.
  */
 import {createDigraph, type Digraph} from '../graph/digraph.ts'
 import {dartHead, nextDarts, traceFaces, type Faces, type RotationSystem} from '../embedding/rotation-system.ts'
