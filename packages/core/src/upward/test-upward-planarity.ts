@@ -13,12 +13,12 @@
  *      a face); the embedding of core + (s, t) minus that edge is the upward embedding;
  *    - every vertex a source or a sink: planar suffices (Di Battista, Liu & Rival, IPL 36, 1990), and
  *      the planarity embedding is checked with the face-assignment condition before it is used;
- *    - one source (and several sinks): the polynomial test of single-source.ts (Bertolazzi, Di
- *      Battista, Mannino & Tamassia, SIAM J. Comput. 27, 1998), O(n²) here, never the search;
  *    - otherwise: first the planarity test's own embedding is tried with the face-assignment
  *      condition (cheap, often enough), then core + a new source S before every source + a new
  *      sink T after every sink + (S, T), an st-digraph, for planarity (sufficient: all sources and
- *      sinks on the outer face), then the exact branch and bound over all planar embeddings
+ *      sinks on the outer face); then, for a core with one source, the polynomial single-source
+ *      test (single-source.ts, Bertolazzi, Di Battista, Mannino & Tamassia, SIAM J. Comput. 27,
+ *      1998; O(n²) here), and for any other the exact branch and bound over all planar embeddings
  *      (embedding-search.ts), restarted from other roots with growing node caps. When it finds
  *      nothing, the reason is "no bimodal embedding at all" if only bimodality ever cut the search,
  *      or if a bimodal-only search of similar size finishes empty; else "no upward embedding".
@@ -191,20 +191,6 @@ function decideCore(red: Reduction, expired: () => boolean, preferWrittenOrder: 
     if (!withST.planar) return {kind: 'no', method: 'st', reason: 'no-upward-embedding', nodes: 0}
     const found = tryEmbedding(withST.embedding)
     if (found !== null) return {kind: 'yes', method: 'st', rot: found.rot, large: found.angles.large, outerVertex: found.angles.outerVertex, nodes: 0}
-  } else if (sources.length === 1) {
-    // One source: the polynomial test (single-source.ts, Bertolazzi et al. 1998) decides; no search.
-    const core = createDigraph(k, pairs)
-    const rot = upwardRotationSingleSource(core, expired)
-    if (rot === 'budget') return {kind: 'budget', nodes: 0}
-    if (rot === null) {
-      // no bimodal planar embedding at all iff the expansion graph (v split into v -> v') is nonplanar
-      const x = expansionGraph(core)
-      const bimodal = testPlanarity(createDigraph(x.vertexCount, x.edges)).planar
-      return {kind: 'no', method: 'single-source', reason: bimodal ? 'no-upward-embedding' : 'not-bimodal', nodes: 0}
-    }
-    const angles = assignLargeAngles(rot, tail, head)
-    if (angles === null) throw new Error('internal: single-source embedding has no large-angle assignment')
-    return {kind: 'yes', method: 'single-source', rot, large: angles.large, outerVertex: angles.outerVertex, nodes: 0}
   } else {
     const plain = testPlanarity(createDigraph(k, pairs))
     if (plain.planar) {
@@ -226,6 +212,23 @@ function decideCore(red: Reduction, expired: () => boolean, preferWrittenOrder: 
         if (inside !== null) return {kind: 'yes', method: 'extremes-outside', rot: inside.rot, large: inside.angles.large, outerVertex: inside.angles.outerVertex, nodes: 0}
       }
     }
+  }
+
+  if (sources.length === 1) {
+    // One source: after the cheap checks above (so their embeddings, and drawings, stay as they
+    // were), the polynomial test (single-source.ts, Bertolazzi et al. 1998) decides; never the search.
+    const core = createDigraph(k, pairs)
+    const rot = upwardRotationSingleSource(core, expired)
+    if (rot === 'budget') return {kind: 'budget', nodes: 0}
+    if (rot === null) {
+      // no bimodal planar embedding at all iff the expansion graph (v split into v -> v') is nonplanar
+      const x = expansionGraph(core)
+      const bimodal = testPlanarity(createDigraph(x.vertexCount, x.edges)).planar
+      return {kind: 'no', method: 'single-source', reason: bimodal ? 'no-upward-embedding' : 'not-bimodal', nodes: 0}
+    }
+    const angles = assignLargeAngles(rot, tail, head)
+    if (angles === null) throw new Error('internal: single-source embedding has no large-angle assignment')
+    return {kind: 'yes', method: 'single-source', rot, large: angles.large, outerVertex: angles.outerVertex, nodes: 0}
   }
 
   // Restarts (common practice against the heavy tails of backtracking search; Gomes, Selman & Kautz,
