@@ -12,7 +12,7 @@
 import {readFileSync, readdirSync, writeFileSync} from 'node:fs'
 import path from 'node:path'
 import {fileURLToPath} from 'node:url'
-import {findDiagramBlocks, parseMarkdown} from 'remark-upright'
+import {findDiagramBlocks, indexLines, parseMarkdown} from 'remark-upright'
 import {run} from '../../packages/cli/src/index.ts'
 
 export const repo = fileURLToPath(new URL('../../', import.meta.url))
@@ -41,7 +41,7 @@ export function pictures(): Picture[] {
     list.push({file: `docs/images/${name.replace(/\.md$/, '.svg')}`, source: `docs/images/examples/${name}`, diagram: 1})
   }
   const language = readFileSync(path.join(repo, 'docs/language.md'), 'utf8')
-  const blocks = findDiagramBlocks(parseMarkdown(language), lineIndex(language))
+  const blocks = findDiagramBlocks(parseMarkdown(language), indexLines(language))
   const lines = language.split('\n')
   for (const {heading, slug} of languageSections) {
     const at = lines.indexOf(`## ${heading}`) + 1
@@ -66,31 +66,6 @@ export async function render(picture: Picture): Promise<string> {
   })
   if (code !== 0) throw new Error(`upright render ${picture.source} --diagram ${picture.diagram} failed:\n${stderr}`)
   return svg
-}
-
-/** findDiagramBlocks wants the plugin's line index; the same one, built from the text. */
-function lineIndex(text: string): Parameters<typeof findDiagramBlocks>[1] {
-  const starts = [0]
-  const ends: number[] = []
-  for (let i = 0; i < text.length; i++) {
-    const c = text.charCodeAt(i)
-    if (c === 13 || c === 10) {
-      ends.push(i)
-      if (c === 13 && text.charCodeAt(i + 1) === 10) i++
-      starts.push(i + 1)
-    }
-  }
-  ends.push(text.length)
-  return {
-    text,
-    starts,
-    line: (n) => (n >= 1 && n <= starts.length ? text.slice(starts[n - 1], ends[n - 1]) : ''),
-    pointAt(offset) {
-      let line = 0
-      while (line + 1 < starts.length && starts[line + 1]! <= offset) line++
-      return {line: line + 1, column: offset - starts[line]! + 1, offset}
-    }
-  }
 }
 
 if (process.argv[1] && path.resolve(process.argv[1]) === fileURLToPath(import.meta.url)) {

@@ -10,7 +10,7 @@
 import {readdirSync, readFileSync} from 'node:fs'
 import path from 'node:path'
 import {parseDiagram} from '../../packages/core/src/index.ts'
-import {findDiagramBlocks, parseMarkdown} from 'remark-upright'
+import {findDiagramBlocks, indexLines, parseMarkdown} from 'remark-upright'
 import {runPythonJson} from '../support/python.ts'
 
 export interface DemoGraph {
@@ -24,7 +24,7 @@ export function demoGraphs(pagesDir: string): DemoGraph[] {
   const graphs: DemoGraph[] = []
   for (const name of readdirSync(pagesDir).filter((f) => f.endsWith('.md')).sort()) {
     const text = readFileSync(path.join(pagesDir, name), 'utf8')
-    const blocks = findDiagramBlocks(parseMarkdown(text), lineIndex(text))
+    const blocks = findDiagramBlocks(parseMarkdown(text), indexLines(text))
     for (const block of blocks) {
       const parsed = parseDiagram(block.body)
       const keys = parsed.vertices.map((v) => v.key)
@@ -44,34 +44,9 @@ export function demoBodies(pagesDir: string): Array<{page: string; line: number;
   const bodies: Array<{page: string; line: number; body: string}> = []
   for (const name of readdirSync(pagesDir).filter((f) => f.endsWith('.md')).sort()) {
     const text = readFileSync(path.join(pagesDir, name), 'utf8')
-    for (const block of findDiagramBlocks(parseMarkdown(text), lineIndex(text))) bodies.push({page: name, line: block.start.line, body: block.body})
+    for (const block of findDiagramBlocks(parseMarkdown(text), indexLines(text))) bodies.push({page: name, line: block.start.line, body: block.body})
   }
   return bodies
-}
-
-/** findDiagramBlocks wants the plugin's line index; build the same one from the text. */
-function lineIndex(text: string): Parameters<typeof findDiagramBlocks>[1] {
-  const starts = [0]
-  const ends: number[] = []
-  for (let i = 0; i < text.length; i++) {
-    const c = text.charCodeAt(i)
-    if (c === 13 || c === 10) {
-      ends.push(i)
-      if (c === 13 && text.charCodeAt(i + 1) === 10) i++
-      starts.push(i + 1)
-    }
-  }
-  ends.push(text.length)
-  return {
-    text,
-    starts,
-    line: (n) => (n >= 1 && n <= starts.length ? text.slice(starts[n - 1], ends[n - 1]) : ''),
-    pointAt(offset) {
-      let line = 0
-      while (line + 1 < starts.length && starts[line + 1]! <= offset) line++
-      return {line: line + 1, column: offset - starts[line]! + 1, offset}
-    }
-  }
 }
 
 /**

@@ -28,7 +28,7 @@ async function run(markdown: string, options: Parameters<typeof remarkUpright>[0
 describe('remark-upright', () => {
   it('pins its public API', async () => {
     expect(Object.keys(await import('remark-upright')).sort()).toEqual(
-      ['checkTree', 'default', 'diagramName', 'findDiagramBlocks', 'messageSource', 'openOutcomeCache', 'parseMarkdown'].sort()
+      ['checkTree', 'default', 'diagramName', 'findDiagramBlocks', 'indexLines', 'messageSource', 'openOutcomeCache', 'parseMarkdown'].sort()
     )
   })
 
