@@ -49,11 +49,22 @@ const load = (): string => loadavg().map((x) => x.toFixed(2)).join(' ')
 const loadAtStart = load()
 const sizes = [1e3, 1e4, 1e5, 1e6].filter((m) => m <= maxEdges)
 
-interface Graph { family: string; n: number; edges: Edges }
+/**
+ * Edge lists are kept flat (edge i is flat[2i] -> flat[2i+1]) and turned into pairs only for a moment:
+ * millions of live [u, v] arrays made every collection inside a timed 10^6-edge call mark them all,
+ * which tripled that call's time (measured 2026-12-02, bench/README.md).
+ */
+interface Graph { family: string; n: number; m: number; flat: Int32Array }
+const compact = (family: string, n: number, edges: Edges): Graph => {
+  const flat = new Int32Array(2 * edges.length)
+  for (let i = 0; i < edges.length; i++) { flat[2 * i] = edges[i]![0]; flat[2 * i + 1] = edges[i]![1] }
+  return {family, n, m: edges.length, flat}
+}
+const pairs = (gr: Graph): Edges => Array.from({length: gr.m}, (_, i) => [gr.flat[2 * i]!, gr.flat[2 * i + 1]!] as [number, number])
 
 function maximalPlanar(m: number, seed: number): Graph {
   const n = Math.round(m / 3) + 2
-  return {family: 'maximal planar', n, edges: randomMaximalPlanar(n, prng(seed))}
+  return compact('maximal planar', n, randomMaximalPlanar(n, prng(seed)))
 }
 function nearPlanar(m: number, seed: number): Graph {
   const rand = prng(seed)
@@ -61,7 +72,7 @@ function nearPlanar(m: number, seed: number): Graph {
   const edges = randomMaximalPlanar(n, rand)
   edges.length = Math.floor(edges.length * 0.9)
   for (let k = 0; k < 3; k++) edges.push(randomNonEdge(n, edges, rand))
-  return {family: 'near-planar', n, edges}
+  return compact('near-planar', n, edges)
 }
 
 /**
@@ -70,7 +81,8 @@ function nearPlanar(m: number, seed: number): Graph {
  * random labels.
  */
 function bfsLabelled(gr: Graph): Graph {
-  const {n, edges} = gr
+  const {n} = gr
+  const edges = pairs(gr)
   const adj: number[][] = Array.from({length: n}, () => [])
   for (const [u, v] of edges) { adj[u]!.push(v); adj[v]!.push(u) }
   const label = new Int32Array(n).fill(-1)
@@ -85,7 +97,7 @@ function bfsLabelled(gr: Graph): Graph {
   }
   const out = edges.map(([u, v]) => [Math.min(label[u]!, label[v]!), Math.max(label[u]!, label[v]!)] as [number, number])
   out.sort((x, y) => x[0] - y[0] || x[1] - y[1])
-  return {family: `${gr.family}, BFS-labelled`, n, edges: out}
+  return compact(`${gr.family}, BFS-labelled`, n, out)
 }
 
 function median(xs: number[]): number {
@@ -122,7 +134,7 @@ function networkx(cases: Array<{n: number; edges: Edges; reps: number; counterex
 // process, so measuring before they are done inflates the first sizes).
 for (let i = 0; i < 300; i++) {
   const w = i % 2 === 0 ? maximalPlanar(1e3, i) : nearPlanar(1e3, i)
-  const g = createDigraph(w.n, w.edges)
+  const g = createDigraph(w.n, pairs(w))
   testPlanarity(g)
   isPlanarSimple(simplify(g).simple)
 }
@@ -134,7 +146,7 @@ for (const m of sizes) {
 }
 const rows: Array<{g: Graph; ours: number; best: number; planar: boolean; viewsMs?: number}> = []
 for (const gr of graphs) {
-  const g: Digraph = createDigraph(gr.n, gr.edges)
+  const g: Digraph = createDigraph(gr.n, pairs(gr))
   let planar = false
   let ms: {median: number; best: number}
   let viewsMs: number | undefined
@@ -162,7 +174,7 @@ for (const gr of graphs) {
   rows.push({g: gr, ours: ms.median, best: ms.best, planar, ...(viewsMs === undefined ? {} : {viewsMs})})
 }
 const loadAfterOurs = load()
-const ref = !withReference ? graphs.map(() => ({planar: true, seconds: NaN})) : networkx(graphs.map((gr) => ({n: gr.n, edges: gr.edges, reps: gr.edges.length <= 1e4 ? 5 : 1, counterexample: false})))
+const ref = !withReference ? graphs.map(() => ({planar: true, seconds: NaN})) : networkx(graphs.map((gr) => ({n: gr.n, edges: pairs(gr), reps: gr.m <= 1e4 ? 5 : 1, counterexample: false})))
 
 const fmt = (x: number, d = 1): string => x.toFixed(d)
 console.log('Planarity: ours (left-right, TypeScript) vs networkx check_planarity, same graphs, one run')
@@ -172,18 +184,18 @@ console.log('| family | n | m | planar | ours ms | ours ns/edge | / 10^3 | best 
 console.log('|---|---:|---:|:---:|---:|---:|---:|---:|---:|---:|---:|')
 for (const [i, r] of rows.entries()) {
   const nx = ref[i]!
-  if (withReference && nx.planar !== r.planar) throw new Error(`answers differ on ${r.g.family} m=${r.g.edges.length}`)
-  const m = r.g.edges.length
+  if (withReference && nx.planar !== r.planar) throw new Error(`answers differ on ${r.g.family} m=${r.g.m}`)
+  const m = r.g.m
   // The same family's row at 10^3 edges (the first of the family).
   const base = rows.find((x) => x.g.family === r.g.family)!
   const perEdge = (ms: number, edges: number): number => (ms * 1e6) / edges
   const ratio = (x: number, y: number): string => `${fmt(x / y, 2)}`
   const med = perEdge(r.ours, m), best = perEdge(r.best, m)
-  console.log(`| ${r.g.family} | ${r.g.n} | ${m} | ${r.planar ? 'yes' : 'no'} | ${fmt(r.ours, 2)} | ${fmt(med)} | ${ratio(med, perEdge(base.ours, base.g.edges.length))} | ${fmt(best)} | ${ratio(best, perEdge(base.best, base.g.edges.length))} | ${fmt(nx.seconds * 1000, 1)} | ${fmt(nx.seconds * 1000 / r.ours)}x |`)
+  console.log(`| ${r.g.family} | ${r.g.n} | ${m} | ${r.planar ? 'yes' : 'no'} | ${fmt(r.ours, 2)} | ${fmt(med)} | ${ratio(med, perEdge(base.ours, base.g.m))} | ${fmt(best)} | ${ratio(best, perEdge(base.best, base.g.m))} | ${fmt(nx.seconds * 1000, 1)} | ${fmt(nx.seconds * 1000 / r.ours)}x |`)
 }
 if (withReference) console.log(`load average after networkx ${load()}`)
 console.log('\nPer-vertex rotation views, made on first access to .rotation (not part of the timed call), CPU ms once:')
-console.log(rows.filter((r) => r.viewsMs !== undefined).map((r) => `${r.g.family} m=${r.g.edges.length}: ${fmt(r.viewsMs!, 2)} ms`).join('; '))
+console.log(rows.filter((r) => r.viewsMs !== undefined).map((r) => `${r.g.family} m=${r.g.m}: ${fmt(r.viewsMs!, 2)} ms`).join('; '))
 
 // Kuratowski extraction (certificate for "no"): near-planar graphs, full testPlanarity.
 const kSizes = [1e3, 1e4, 1e5, 1e6].filter((m) => m <= kuratowskiMax)
@@ -192,14 +204,14 @@ console.log('| n | m | type | edges in subgraph | extraction ms | networkx check
 console.log('|---:|---:|:---:|---:|---:|---:|')
 const kGraphs = kSizes.map((m) => nearPlanar(m, m + 3))
 // networkx's counterexample search deletes edges one at a time; only run it at the smallest size.
-const kRef = networkx(kGraphs.slice(0, withReference && kSizes[0] === 1e3 ? 1 : 0).map((gr) => ({n: gr.n, edges: gr.edges, reps: 1, counterexample: true})))
+const kRef = networkx(kGraphs.slice(0, withReference && kSizes[0] === 1e3 ? 1 : 0).map((gr) => ({n: gr.n, edges: pairs(gr), reps: 1, counterexample: true})))
 for (const [i, gr] of kGraphs.entries()) {
-  const g = createDigraph(gr.n, gr.edges)
+  const g = createDigraph(gr.n, pairs(gr))
   let r = testPlanarity(g)
-  const ms = time(gr.edges.length <= 1e4 ? 5 : 1, () => { r = testPlanarity(g) }).median
-  if (r.planar) { console.log(`| ${gr.n} | ${gr.edges.length} | (planar, skipped) | | | |`); continue }
+  const ms = time(gr.m <= 1e4 ? 5 : 1, () => { r = testPlanarity(g) }).median
+  if (r.planar) { console.log(`| ${gr.n} | ${gr.m} | (planar, skipped) | | | |`); continue }
   const ok = verifyKuratowski(g, r.kuratowski)
   if (!ok.ok) throw new Error(`bad Kuratowski subgraph: ${ok.reason}`)
   const nx = kRef[i]
-  console.log(`| ${gr.n} | ${gr.edges.length} | ${r.kuratowski.type} | ${r.kuratowski.edges.length} | ${fmt(ms, 1)} | ${nx ? fmt(nx.seconds * 1000, 1) : '-'} |`)
+  console.log(`| ${gr.n} | ${gr.m} | ${r.kuratowski.type} | ${r.kuratowski.edges.length} | ${fmt(ms, 1)} | ${nx ? fmt(nx.seconds * 1000, 1) : '-'} |`)
 }
