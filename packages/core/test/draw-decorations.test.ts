@@ -177,6 +177,22 @@ function randomLabelled(seed: number): string {
   return lines.join('\n')
 }
 
+/**
+ * Draws a random diagram in the flow its seed picks and checks it; what is wrong goes to `failures`.
+ * The drawing, or undefined when there is none.
+ */
+function drawSeeded(seed: number, check: DiagramCheck, failures: string[]): Drawing | undefined {
+  const flow = flows[seed % 4]!
+  const result = drawDiagram(check, {flow})
+  if (!result.ok) {
+    failures.push(`seed ${seed}: not drawn`)
+    return undefined
+  }
+  const found = problems(check, result.drawing)
+  if (found.length > 0) failures.push(`seed ${seed} ${flow}: ${found.slice(0, 3).join('; ')}`)
+  return result.drawing
+}
+
 describe('random diagrams through the decorated checker', () => {
   it('≥ 300 random tiered diagrams that pass the check are drawn level by level, crossing-free', () => {
     const failures: string[] = []
@@ -186,16 +202,10 @@ describe('random diagrams through the decorated checker', () => {
       const text = randomTiered(seed)
       const check = checkDiagram(text)
       if (check.status !== 'upward' || !check.parsed.tiers) continue
-      const flow = flows[seed % 4]!
-      const result = drawDiagram(check, {flow})
-      if (!result.ok) {
-        failures.push(`seed ${seed}: not drawn`)
-        continue
-      }
+      const drawing = drawSeeded(seed, check, failures)
+      if (!drawing) continue
       drawn++
-      if (result.drawing.edgeLabels.length > 0) labelled++
-      const found = problems(check, result.drawing)
-      if (found.length > 0) failures.push(`seed ${seed} ${flow}: ${found.slice(0, 3).join('; ')}`)
+      if (drawing.edgeLabels.length > 0) labelled++
     }
     expect(failures).toEqual([])
     expect(drawn).toBeGreaterThanOrEqual(300)
@@ -209,15 +219,7 @@ describe('random diagrams through the decorated checker', () => {
       const text = randomLabelled(seed)
       const check = checkDiagram(text)
       expect(check.status, `seed ${seed}`).toBe('upward')
-      const flow = flows[seed % 4]!
-      const result = drawDiagram(check, {flow})
-      if (!result.ok) {
-        failures.push(`seed ${seed}: not drawn`)
-        continue
-      }
-      drawn++
-      const found = problems(check, result.drawing)
-      if (found.length > 0) failures.push(`seed ${seed} ${flow}: ${found.slice(0, 3).join('; ')}`)
+      if (drawSeeded(seed, check, failures)) drawn++
     }
     expect(failures).toEqual([])
     expect(drawn).toBeGreaterThanOrEqual(300)
