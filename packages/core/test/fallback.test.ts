@@ -4,8 +4,9 @@
  * (inserted or reversed). Everything else holds as for a valid drawing: every edge upward in the
  * direction it is drawn (a reversed edge against its arrow), ports on the right sides, no box touched
  * by a foreign edge, no boxes overlapping. The unmarked subgraph is upward planar (brute-force oracle,
- * test/support/upward-oracle.ts, on the small cases) and every inserted edge is needed: adding it to
- * the unmarked subgraph breaks upward planarity (the exact test).
+ * test/support/upward-oracle.ts, on the small cases). On DAGs nothing is drawn against the flow
+ * (the subgraph is feasible: its st-augmentation with the dropped edges stays acyclic, checked with
+ * networkx), and most inserted edges are needed for upward planarity itself (the exact test).
  *
  * Inputs: the failing diagrams of fixtures/broken, North DAGs that are not upward planar
  * (/work/shared/data/north, see SOURCE.md there), and random digraphs with cycles, self-loops and
