@@ -1,11 +1,10 @@
-import {readdirSync} from 'node:fs'
 import {describe, expect, it} from 'vitest'
 import {createDigraph} from '../src/index.ts'
 import {testPlanarity} from '../src/planarity/index.ts'
 import {testUpwardEmbedded, testUpwardPlanarity} from '../src/upward/index.ts'
 import {expansionGraph, isUpwardPlanarSingleSource, upwardRotationSingleSource} from '../src/upward/single-source.ts'
 import {stAugment, verifyStGraph} from '../src/augment/index.ts'
-import {readGraphml} from './support/graphml.ts'
+import {singleSourceNorthDags} from './support/north-dags.ts'
 import {mulberry32} from './support/random-st.ts'
 import {randomDag} from './support/upward-families.ts'
 import {checkUpwardWitness, isUpwardPlanarBruteForce, type Edge} from './support/upward-oracle.ts'
@@ -150,14 +149,8 @@ describe('single-source upward planarity in polynomial time', () => {
   })
 
   it('agrees with the exact test on the 610 single-source North DAGs (SOURCE.md: 610 have one source)', () => {
-    const dir = '/work/shared/data/north'
     let single = 0, yes = 0, skipped = 0
-    for (const file of readdirSync(dir).filter((f) => f.endsWith('.graphml'))) {
-      const {vertexCount, edges} = readGraphml(`${dir}/${file}`)
-      const g = createDigraph(vertexCount, edges)
-      let sources = 0
-      for (let v = 0; v < vertexCount; v++) if (g.inStart[v + 1] === g.inStart[v]) sources++
-      if (sources !== 1) continue
+    for (const {file, vertexCount, edges, graph: g} of singleSourceNorthDags()) {
       single++
       const exact = testUpwardPlanarity(g)
       expect(exact.status, file).not.toBe('undecided')
@@ -171,6 +164,20 @@ describe('single-source upward planarity in polynomial time', () => {
     expect(single).toBe(610)
     expect(yes).toBeGreaterThan(300)
     expect(skipped).toBeLessThan(10)
+  })
+
+  it('agrees with the oracle with parallel edges (300 single-source DAGs with one or two edges doubled)', () => {
+    const rnd = mulberry32(2)
+    let k = 0
+    while (k < 300) {
+      const n = 3 + Math.floor(rnd() * 5)
+      const edges: Edge[] = randomDag(rnd, n, 0.3 + 0.4 * rnd(), 'single-source')
+      const doubled = 1 + Math.floor(rnd() * 2)
+      for (let i = 0; i < doubled; i++) edges.push(edges[Math.floor(rnd() * edges.length)]!)
+      if (edges.length > 11) continue
+      k++
+      expect(singleSource(n, edges), JSON.stringify(edges)).toBe(isUpwardPlanarBruteForce(n, edges))
+    }
   })
 
   it('refuses what it does not decide: several sources, or a cycle', () => {
