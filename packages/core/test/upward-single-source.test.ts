@@ -1,9 +1,7 @@
 import {spawnSync} from 'node:child_process'
-import {readdirSync} from 'node:fs'
 import {describe, expect, it} from 'vitest'
-import {createDigraph} from '../src/index.ts'
 import {testUpwardPlanarity} from '../src/upward/index.ts'
-import {readGraphml} from './support/graphml.ts'
+import {singleSourceNorthDags} from './support/north-dags.ts'
 import {mulberry32} from './support/random-st.ts'
 import {randomDag} from './support/upward-families.ts'
 import {checkObstruction, decide} from './support/upward-check.ts'
@@ -100,15 +98,9 @@ describe('single-source digraphs', () => {
   })
 
   it('decides all 610 single-source North DAGs (SOURCE.md: 610 have exactly one source)', () => {
-    const dir = '/work/shared/data/north'
     let single = 0
     const tally: Record<string, number> = {}
-    for (const file of readdirSync(dir).filter((f) => f.endsWith('.graphml'))) {
-      const {vertexCount, edges} = readGraphml(`${dir}/${file}`)
-      const g = createDigraph(vertexCount, edges)
-      let sources = 0
-      for (let v = 0; v < vertexCount; v++) if (g.inStart[v + 1] === g.inStart[v]) sources++
-      if (sources !== 1) continue
+    for (const {file, graph: g} of singleSourceNorthDags()) {
       single++
       const r = testUpwardPlanarity(g)
       expect(r.status, file).not.toBe('undecided')
