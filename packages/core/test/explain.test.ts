@@ -10,33 +10,17 @@
  *   not, by the brute-force oracle (test/support/upward-oracle.ts, shares no code with src).
  */
 import {readdirSync, readFileSync} from 'node:fs'
-import {spawnSync} from 'node:child_process'
 import {describe, expect, it} from 'vitest'
 import {createDigraph, type Digraph} from '../src/graph/digraph.ts'
 import {feedbackArcSet, maximalUpwardSubgraph, planarizingSet} from '../src/explain/index.ts'
 import {checkDiagram} from '../src/check/index.ts'
 import {isUpwardPlanarBruteForce} from './support/upward-oracle.ts'
 import {networkxPlanar} from './support/planarity-networkx.ts'
+import {networkxAcyclic} from './support/acyclic-networkx.ts'
 import {prng} from './support/planarity-generators.ts'
 import {readGraphml} from './support/graphml.ts'
 
 type Edges = Array<[number, number]>
-
-function networkxAcyclic(graphs: ReadonlyArray<{vertexCount: number; edges: Edges}>): boolean[] {
-  const script = [
-    'import sys, json, networkx as nx',
-    'out = []',
-    'for n, edges in json.load(sys.stdin):',
-    '    g = nx.MultiDiGraph()',
-    '    g.add_nodes_from(range(n))',
-    '    g.add_edges_from(edges)',
-    '    out.append(nx.is_directed_acyclic_graph(g))',
-    'json.dump(out, sys.stdout)'
-  ].join('\n')
-  const r = spawnSync('python3', ['-c', script], {input: JSON.stringify(graphs.map((g) => [g.vertexCount, g.edges])), encoding: 'utf8', maxBuffer: 1 << 28})
-  if (r.status !== 0) throw new Error(`python3/networkx failed: ${r.stderr}`)
-  return JSON.parse(r.stdout) as boolean[]
-}
 
 const without = (edges: Edges, drop: readonly number[]): Edges => edges.filter((_, e) => !drop.includes(e))
 

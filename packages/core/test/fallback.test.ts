@@ -12,7 +12,6 @@
  * (/work/shared/data/north, see SOURCE.md there), and random digraphs with cycles, self-loops and
  * crossings forced by density, in all four flows.
  */
-import {spawnSync} from 'node:child_process'
 import {readdirSync, readFileSync} from 'node:fs'
 import {describe, expect, it} from 'vitest'
 import {createDigraph, type Digraph} from '../src/graph/digraph.ts'
@@ -24,7 +23,8 @@ import {checkDrawing} from './support/geometry-check.ts'
 import {stAugment} from '../src/augment/st-augment.ts'
 import {maximalUpwardSubgraph} from '../src/explain/index.ts'
 import {verifyStGraph} from '../src/augment/index.ts'
-import {readGraphml} from './support/graphml.ts'
+import {notUpwardNorthDags} from './support/north-dags.ts'
+import {networkxAcyclic} from './support/acyclic-networkx.ts'
 import {isUpwardPlanarBruteForce} from './support/upward-oracle.ts'
 import {prng} from './support/planarity-generators.ts'
 
@@ -68,23 +68,6 @@ function verifySubgraph(g: Digraph, fb: FallbackLayout, oracle: boolean): void {
   expect(testUpwardPlanarity(createDigraph(g.vertexCount, kept), {maxMillis: 5000}).status).toBe('upward')
 }
 
-/** networkx is_directed_acyclic_graph (networkx 3.6 on this machine), one python3 run for the batch. */
-function networkxAcyclic(graphs: ReadonlyArray<{vertexCount: number; edges: ReadonlyArray<readonly [number, number]>}>): boolean[] {
-  const script = [
-    'import sys, json, networkx as nx',
-    'out = []',
-    'for n, edges in json.load(sys.stdin):',
-    '    g = nx.MultiDiGraph()',
-    '    g.add_nodes_from(range(n))',
-    '    g.add_edges_from(edges)',
-    '    out.append(nx.is_directed_acyclic_graph(g))',
-    'json.dump(out, sys.stdout)'
-  ].join('\n')
-  const r = spawnSync('python3', ['-c', script], {input: JSON.stringify(graphs.map((g) => [g.vertexCount, g.edges])), encoding: 'utf8', maxBuffer: 1 << 28})
-  if (r.status !== 0) throw new Error(`python3/networkx failed: ${r.stderr}`)
-  return JSON.parse(r.stdout) as boolean[]
-}
-
 function boxesFor(rand: () => number, n: number): BoxSize[] {
   return Array.from({length: n}, () => ({width: 20 + Math.floor(rand() * 60), height: 14 + Math.floor(rand() * 20)}))
 }
@@ -111,24 +94,18 @@ describe('fallback drawing', () => {
   })
 
   it('draws North DAGs that are not upward planar, every edge upward (feasible subgraph)', () => {
-    const dir = '/work/shared/data/north'
-    const files = readdirSync(dir).filter((f) => f.endsWith('.graphml')).sort()
     const rand = prng(17)
     let drawn = 0
     let roomOnly = 0
     let insertedAll = 0
-    for (let i = 0; i < files.length && drawn < 14; i += 13) {
-      const {vertexCount, edges} = readGraphml(`${dir}/${files[i]}`)
-      if (vertexCount > 60) continue
-      const g = createDigraph(vertexCount, edges)
-      if (testUpwardPlanarity(g, {maxMillis: 5000}).status !== 'not-upward') continue
+    for (const {file, vertexCount, graph: g} of notUpwardNorthDags(0, 13, 60)) {
       const boxes = boxesFor(rand, vertexCount)
       const fb = layoutFallback(g, {flow: flows[drawn % 4]!, boxes, budget: {maxMillis: 30000}})
       expect(fb.maximal).toBe(true)
-      expect(fallbackProblems(g, fb, boxes), files[i]).toEqual([])
+      expect(fallbackProblems(g, fb, boxes), file).toEqual([])
       // No cycle to break and the subgraph leaves room for the rest: nothing is drawn against the flow
       // (the checker above verified every edge's direction).
-      expect(fb.reversed, files[i]).toEqual([])
+      expect(fb.reversed, file).toEqual([])
       expect(fb.inserted.length).toBeGreaterThan(0)
       verifySubgraph(g, fb, false)
       // Most inserted edges are needed for upward planarity itself (exact test); the others were left
@@ -139,7 +116,7 @@ describe('fallback drawing', () => {
         if (testUpwardPlanarity(createDigraph(vertexCount, [...plain, [g.tail[e]!, g.head[e]!]]), {maxMillis: 5000}).status === 'upward') roomOnly++
         insertedAll++
       }
-      drawn++
+      if (++drawn >= 14) break
     }
     expect(drawn).toBeGreaterThanOrEqual(8)
     // Measured on these graphs: 28 of 90 are left out for room only; most are needed for upward planarity.
@@ -147,15 +124,9 @@ describe('fallback drawing', () => {
   })
 
   it('the feasible augmentation keeps the dropped edges acyclic with it (networkx), a plain one need not', () => {
-    const dir = '/work/shared/data/north'
-    const files = readdirSync(dir).filter((f) => f.endsWith('.graphml')).sort()
     const cases: Array<{vertexCount: number; edges: Array<[number, number]>; hooked: boolean}> = []
     let hooked = 0
-    for (let i = 5; i < files.length && hooked < 12; i += 11) {
-      const {vertexCount, edges} = readGraphml(`${dir}/${files[i]}`)
-      if (vertexCount > 50) continue
-      const g = createDigraph(vertexCount, edges)
-      if (testUpwardPlanarity(g, {maxMillis: 5000}).status !== 'not-upward') continue
+    for (const {file, index: i, vertexCount, edges, graph: g} of notUpwardNorthDags(5, 11, 50)) {
       const fb = layoutFallback(g, {flow: 'up', boxes: boxesFor(prng(i), vertexCount), budget: {maxMillis: 30000}})
       // The fallback's subgraph augmented with the hook, and the plain maximal subgraph (explain)
       // augmented without it, each with the edges it leaves out.
@@ -164,7 +135,7 @@ describe('fallback drawing', () => {
         const keptIds = [...edges.keys()].filter((e) => !droppedIds.includes(e))
         const kept = createDigraph(vertexCount, keptIds.map((e) => edges[e]!))
         const tested = testUpwardPlanarity(kept, {maxMillis: 5000})
-        if (tested.status !== 'upward') throw new Error(`${files[i]}: the kept subgraph is not upward planar`)
+        if (tested.status !== 'upward') throw new Error(`${file}: the kept subgraph is not upward planar`)
         // Reachability in G plus the augmentation so far (common practice: depth-first search).
         const out: number[][] = Array.from({length: vertexCount}, () => [])
         for (const [u, v] of edges) out[u]!.push(v)
@@ -180,12 +151,13 @@ describe('fallback drawing', () => {
         }
         const aug = withHook ? stAugment(tested.upward, {allowEdge: (t, h) => !reaches(h, t) && (out[t]!.push(h), true)}) : stAugment(tested.upward)
         if (!aug) continue // this embedding's faces could not be saturated with the hook
-        expect(verifyStGraph(kept, aug, tested.upward.embedding), files[i]).toEqual({ok: true})
+        expect(verifyStGraph(kept, aug, tested.upward.embedding), file).toEqual({ok: true})
         if (withHook) hooked++
         const hEdges: Array<[number, number]> = []
         for (let e = 0; e < aug.graph.edgeCount; e++) hEdges.push([aug.graph.tail[e]!, aug.graph.head[e]!])
         cases.push({vertexCount: aug.graph.vertexCount, edges: [...hEdges, ...droppedIds.map((e) => edges[e]!)], hooked: withHook})
       }
+      if (hooked >= 12) break
     }
     expect(hooked).toBeGreaterThanOrEqual(6)
     const acyclic = networkxAcyclic(cases)
