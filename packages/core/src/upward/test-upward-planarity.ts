@@ -255,12 +255,14 @@ function decideCore(red: Reduction, expired: () => boolean, preferWrittenOrder: 
   }
   // If the assignment bound never cut, the search met only non-bimodal dead ends: no bimodal
   // embedding exists. Otherwise a bimodal-only search, capped at about the same effort, may tell; when it
-  // cannot, the weaker reason is still true.
+  // cannot, the weaker reason is still true. Only the node cap may pick the weaker reason: the clock
+  // running out here gives 'budget', so a loaded machine never turns one reason into the other.
   let reason: 'not-bimodal' | 'no-upward-embedding' = 'not-bimodal'
   let nodes = spent
   if (out.assignmentPruned) {
     let left = out.nodes + 256
     const bimodal = searchUpwardEmbedding(k, tail, head, 'bimodal', () => --left < 0 || expired())
+    if (bimodal.found === 'budget' && left >= 0) return {kind: 'budget', nodes: nodes + bimodal.nodes}
     nodes += bimodal.nodes
     reason = bimodal.found === false ? 'not-bimodal' : 'no-upward-embedding'
   }
