@@ -86,6 +86,8 @@ export function triconnectedComponents(
   let virtuals = 0
   const finals: Array<{kind: ComponentKind; items: Item[]}> = []
   const work: Array<{items: Item[]; cursor: number}> = [{items: edges.map(([a, b], i) => ({a, b, real: i, virtual: -1})), cursor: 0}]
+  // scratch indexed by input vertex id, shared by all pieces (no per-piece maps)
+  const ix = new PieceIndex(n)
 
   let tries = 0
   while (work.length > 0) {
@@ -96,112 +98,90 @@ export function triconnectedComponents(
     // until neither is left (each split is at a separation pair, so the cursor stays valid)
     let done: ComponentKind | null = null
     for (;;) {
-      const groups = new Map<number, Item[]>()
-      for (const it of items) {
-        const key = it.a < it.b ? it.a * n + it.b : it.b * n + it.a
-        const g = groups.get(key)
-        if (g === undefined) groups.set(key, [it])
-        else g.push(it)
-      }
-      if (groups.size === 1) {
+      ix.build(items)
+      const groups = ix.parallelGroups()
+      if (groups.count === 1) {
         done = 'P'
         break
       }
       let changed = false
-      if (groups.size < items.length) {
+      if (groups.count < items.length) {
         changed = true
         const kept: Item[] = []
-        for (const g of groups.values()) {
-          if (g.length === 1) {
-            kept.push(g[0]!)
+        for (let g = 0; g < groups.count; g++) {
+          const first = groups.members[groups.start[g]!]!
+          const size = groups.start[g + 1]! - groups.start[g]!
+          if (size === 1) {
+            kept.push(items[first]!)
             continue
           }
+          const bond: Item[] = []
+          for (let p = groups.start[g]!; p < groups.start[g + 1]!; p++) bond.push(items[groups.members[p]!]!)
+          const a = items[first]!.a, b = items[first]!.b
           const v = virtuals++
-          finals.push({kind: 'P', items: [...g, {a: g[0]!.a, b: g[0]!.b, real: -1, virtual: v}]})
-          kept.push({a: g[0]!.a, b: g[0]!.b, real: -1, virtual: v})
+          bond.push({a, b, real: -1, virtual: v})
+          finals.push({kind: 'P', items: bond})
+          kept.push({a, b, real: -1, virtual: v})
         }
         items = kept
+        ix.build(items)
       }
-      const at = new Map<number, number[]>()
-      items.forEach((it, i) => {
-        for (const x of [it.a, it.b]) {
-          const l = at.get(x)
-          if (l === undefined) at.set(x, [i])
-          else l.push(i)
-        }
-      })
+      const {k, adjStart, adj, verts} = ix
       let branch = false
-      for (const l of at.values()) if (l.length !== 2) branch = true
+      for (let v = 0; v < k && !branch; v++) if (adjStart[v + 1]! - adjStart[v]! !== 2) branch = true
       if (!branch) {
         done = 'S'
         break
       }
-      // maximal chains through degree-2 vertices, each between two branch vertices
+      // maximal chains through degree-2 vertices, each between two branch vertices (local ids)
       const gone = new Uint8Array(items.length)
       const added: Item[] = []
-      for (const [v, l] of at) {
-        if (l.length !== 2 || gone[l[0]!]) continue
+      for (let v = 0; v < k; v++) {
+        if (adjStart[v + 1]! - adjStart[v]! !== 2 || gone[adj[adjStart[v]!]!]) continue
         const chain: number[] = []
         const ends: number[] = []
-        for (const first of l) {
-          let item = first, x = v
+        for (let side = 0; side < 2; side++) {
+          let item = adj[adjStart[v]! + side]!, x = v
           for (;;) {
             chain.push(item)
-            const it = items[item]!
-            x = it.a === x ? it.b : it.a
-            const lx = at.get(x)!
-            if (lx.length !== 2) break
-            item = lx[0] === item ? lx[1]! : lx[0]!
+            x = ix.other(item, x)
+            if (adjStart[x + 1]! - adjStart[x]! !== 2) break
+            const p = adjStart[x]!
+            item = adj[p] === item ? adj[p + 1]! : adj[p]!
           }
-          ends.push(x)
+          ends.push(verts[x]!)
         }
         for (const i of chain) gone[i] = 1
         const w = virtuals++
-        finals.push({kind: 'S', items: [...chain.map((i) => items[i]!), {a: ends[0]!, b: ends[1]!, real: -1, virtual: w}]})
+        const polygon = chain.map((i) => items[i]!)
+        polygon.push({a: ends[0]!, b: ends[1]!, real: -1, virtual: w})
+        finals.push({kind: 'S', items: polygon})
         added.push({a: ends[0]!, b: ends[1]!, real: -1, virtual: w})
         changed = true
       }
-      if (added.length > 0) items = [...items.filter((_, i) => !gone[i]), ...added]
+      if (added.length > 0) {
+        const rest = items.filter((_, i) => !gone[i])
+        for (const it of added) rest.push(it)
+        items = rest
+      }
       if (!changed) break
     }
     if (done !== null) {
       finals.push({kind: done, items})
       continue
     }
-    const local = new Map<number, number>()
-    const verts: number[] = []
-    for (const it of items) {
-      for (const x of [it.a, it.b]) {
-        if (!local.has(x)) {
-          local.set(x, verts.length)
-          verts.push(x)
-        }
-      }
-    }
-    const k = verts.length
-    const deg = new Int32Array(k)
-    for (const it of items) {
-      deg[local.get(it.a)!]!++
-      deg[local.get(it.b)!]!++
-    }
+    // ix describes `items` here: the last round changed nothing
+    const {k, adjStart, adj, verts} = ix
+    const ia = ix.ia, ib = ix.ib
+    const other = (i: number, x: number) => (ia[i] === x ? ib[i]! : ia[i]!)
     // 3. a separation pair, trying vertices in increasing id from the cursor
-    const adjStart = new Int32Array(k + 1)
-    for (let i = 0; i < k; i++) adjStart[i + 1] = adjStart[i]! + deg[i]!
-    const adj = new Int32Array(2 * items.length) // item index
-    const fill = adjStart.slice(0, k)
-    items.forEach((it, i) => {
-      adj[fill[local.get(it.a)!]!++] = i
-      adj[fill[local.get(it.b)!]!++] = i
-    })
-    const other = (i: number, x: number) => {
-      const it = items[i]!
-      return local.get(it.a === verts[x] ? it.b : it.a)!
-    }
-    const order = verts.map((_, i) => i).filter((i) => verts[i]! >= piece.cursor).sort((p, q) => verts[p]! - verts[q]!)
+    const order: number[] = []
+    for (let i = 0; i < k; i++) if (verts[i]! >= piece.cursor) order.push(i)
+    order.sort((p, q) => verts[p]! - verts[q]!)
     let found: {x: number; y: number} | null = null
     // On a planar piece only vertices sharing faces with x can pair with it (below); else every x
     // is tried with one DFS of the piece minus x.
-    const pairFor = planarPairFinder(k, items, local, adjStart, adj, other)
+    const pairFor = planarPairFinder(k, ia, ib, adjStart, adj, other)
     for (const x of order) {
       if ((++tries & 31) === 0 && stop?.() === true) throw new DecompositionStopped()
       const y = pairFor !== null ? pairFor(x) : articulationWithout(k, adjStart, adj, other, x)
@@ -238,15 +218,126 @@ export function triconnectedComponents(
     const xa = verts[x]!, ya = verts[y]!
     const inside: Item[] = [{a: xa, b: ya, real: -1, virtual: v}]
     const outside: Item[] = [{a: xa, b: ya, real: -1, virtual: v}]
-    for (const it of items) {
-      if (comp[local.get(it.a)!] === 1 || comp[local.get(it.b)!] === 1) inside.push(it)
-      else outside.push(it)
+    for (let i = 0; i < items.length; i++) {
+      if (comp[ia[i]!] === 1 || comp[ib[i]!] === 1) inside.push(items[i]!)
+      else outside.push(items[i]!)
     }
     const cursor = verts[x]!
     work.push({items: outside, cursor}, {items: inside, cursor})
   }
 
   return merge(finals, virtuals)
+}
+
+/**
+ * Local numbering and item adjacency (CSR) of one piece: vertices in order of first appearance
+ * (a before b, items in order), each vertex's items in item order. The map from input vertex id
+ * to local id lives in arrays of the input's size that every piece reuses, so indexing a piece
+ * costs O(its items), not O(n).
+ */
+class PieceIndex {
+  private readonly localOf: Int32Array
+  private readonly mark: Int32Array
+  private readonly firstWith: Int32Array
+  private epoch = 0
+  private tag = -1
+  k = 0
+  verts = new Int32Array(0)
+  ia = new Int32Array(0)
+  ib = new Int32Array(0)
+  adjStart = new Int32Array(1)
+  adj = new Int32Array(0)
+
+  constructor(n: number) {
+    this.localOf = new Int32Array(n)
+    this.mark = new Int32Array(n).fill(-1)
+    this.firstWith = new Int32Array(n)
+  }
+
+  build(items: readonly Item[]): void {
+    const L = items.length
+    const stamp = ++this.epoch
+    const localOf = this.localOf, mark = this.mark
+    const verts = new Int32Array(2 * L)
+    const ia = new Int32Array(L), ib = new Int32Array(L)
+    let k = 0
+    for (let i = 0; i < L; i++) {
+      const it = items[i]!
+      if (mark[it.a] !== stamp) {
+        mark[it.a] = stamp
+        localOf[it.a] = k
+        verts[k++] = it.a
+      }
+      ia[i] = localOf[it.a]!
+      if (mark[it.b] !== stamp) {
+        mark[it.b] = stamp
+        localOf[it.b] = k
+        verts[k++] = it.b
+      }
+      ib[i] = localOf[it.b]!
+    }
+    const adjStart = new Int32Array(k + 1)
+    for (let i = 0; i < L; i++) {
+      adjStart[ia[i]! + 1]!++
+      adjStart[ib[i]! + 1]!++
+    }
+    for (let v = 0; v < k; v++) adjStart[v + 1]! += adjStart[v]!
+    const fill = adjStart.slice(0, k)
+    const adj = new Int32Array(2 * L)
+    for (let i = 0; i < L; i++) {
+      adj[fill[ia[i]!]!++] = i
+      adj[fill[ib[i]!]!++] = i
+    }
+    this.k = k
+    this.verts = verts.subarray(0, k)
+    this.ia = ia
+    this.ib = ib
+    this.adjStart = adjStart
+    this.adj = adj
+  }
+
+  other(i: number, x: number): number {
+    return this.ia[i] === x ? this.ib[i]! : this.ia[i]!
+  }
+
+  /**
+   * Items grouped by unordered vertex pair, groups in order of their first item, members in item
+   * order (start/members in CSR form). For each vertex u, the items to higher-numbered neighbours
+   * are scanned in item order, so a group's leader is its smallest item.
+   */
+  parallelGroups(): {count: number; start: Int32Array; members: Int32Array} {
+    const {k, adjStart, adj, ia} = this
+    const L = ia.length
+    const leader = new Int32Array(L)
+    // mark / firstWith reused with a fresh tag per vertex u (tags count down from -2, so they
+    // never collide with build()'s positive epochs nor with an earlier call's tags)
+    const mark = this.mark, firstWith = this.firstWith, verts = this.verts
+    for (let u = 0; u < k; u++) {
+      const tag = --this.tag
+      for (let p = adjStart[u]!; p < adjStart[u + 1]!; p++) {
+        const i = adj[p]!
+        const w = this.other(i, u)
+        if (w < u) continue
+        const gw = verts[w]!
+        if (mark[gw] === tag) leader[i] = firstWith[gw]!
+        else {
+          mark[gw] = tag
+          firstWith[gw] = i
+          leader[i] = i
+        }
+      }
+    }
+    const groupOf = new Int32Array(L)
+    let count = 0
+    for (let i = 0; i < L; i++) groupOf[i] = leader[i] === i ? count++ : groupOf[leader[i]!]!
+    const start = new Int32Array(count + 1)
+    for (let i = 0; i < L; i++) start[groupOf[i]! + 1]!++
+    for (let g = 0; g < count; g++) start[g + 1]! += start[g]!
+    const fill = start.slice(0, count)
+    const members = new Int32Array(L)
+    for (let i = 0; i < L; i++) members[fill[groupOf[i]!]!++] = i
+    return {count, start, members}
+  }
 }
 
 /**
@@ -260,19 +351,32 @@ export function triconnectedComponents(
  */
 function planarPairFinder(
   k: number,
-  items: readonly Item[],
-  local: ReadonlyMap<number, number>,
+  ia: Int32Array,
+  ib: Int32Array,
   adjStart: Int32Array,
   adj: Int32Array,
   other: (item: number, v: number) => number
 ): ((x: number) => number) | null {
-  const pg = createDigraph(k, items.map((it) => [local.get(it.a)!, local.get(it.b)!] as [number, number]))
+  const pairs: Array<[number, number]> = new Array<[number, number]>(ia.length)
+  for (let i = 0; i < ia.length; i++) pairs[i] = [ia[i]!, ib[i]!]
+  const pg = createDigraph(k, pairs)
   const planar = testPlanarity(pg)
   if (!planar.planar) return null
   const faces = traceFaces({graph: pg, rotation: planar.embedding.rotation})
   const F = faces.darts.length
   // vertices of each face, and faces around each vertex (each once)
-  const faceVerts: number[][] = faces.darts.map((ds) => [...new Set(Array.from(ds, (d) => dartHead(pg, d)))])
+  const onFace = new Int32Array(k).fill(-1)
+  const faceVerts: number[][] = faces.darts.map((ds, f) => {
+    const vs: number[] = []
+    for (const d of ds) {
+      const v = dartHead(pg, d)
+      if (onFace[v] !== f) {
+        onFace[v] = f
+        vs.push(v)
+      }
+    }
+    return vs
+  })
   const facesAt: number[][] = Array.from({length: k}, () => [])
   for (let f = 0; f < F; f++) for (const v of faceVerts[f]!) facesAt[v]!.push(f)
   const count = new Int32Array(k)
