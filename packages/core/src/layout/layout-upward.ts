@@ -35,12 +35,18 @@ import {layerByWeightedSpan} from './layering.ts'
 import {dualOrder} from './dual-order.ts'
 import {pruneAugmentation} from './prune-augmentation.ts'
 import {assignCoordinates, type LayeredGraph} from './coordinates.ts'
-import {defaultSpacing, type Flow, type Layout, type LayoutInput, type Spacing} from './types.ts'
-
-/** Smallest gap accepted, so separations stay positive whatever the caller passes. */
-const MIN_GAP = 1
-/** Segment weights by number of bend ends (0, 1, 2), see coordinates.ts. */
-const SEGMENT_WEIGHT = [1, 2, 8] as const
+import {
+  bandCentres,
+  boxHalves,
+  dropStraightThrough,
+  orient,
+  resolveSpacing,
+  SEGMENT_WEIGHT,
+  spreadPorts,
+  typicalStep,
+  type Point,
+} from './banded-drawing.ts'
+import type {Layout, LayoutInput} from './types.ts'
 
 export function layoutUpward(input: LayoutInput): Layout {
   const {graph: g, boxes, flow} = input
@@ -49,22 +55,11 @@ export function layoutUpward(input: LayoutInput): Layout {
   const h = st.graph
   const n = g.vertexCount
   const m = g.edgeCount
-  const spacing: Spacing = {
-    layer: Math.max(MIN_GAP, input.spacing?.layer ?? defaultSpacing.layer),
-    node: Math.max(MIN_GAP, input.spacing?.node ?? defaultSpacing.node),
-    edge: Math.max(MIN_GAP, input.spacing?.edge ?? defaultSpacing.edge),
-  }
+  const spacing = resolveSpacing(input.spacing)
   if (n === 0) return {flow, width: 0, height: 0, nodes: [], edges: []}
 
   // Box extents in internal coordinates: u across the flow, v along it.
-  const sideways = flow === 'left' || flow === 'right'
-  const halfU = new Float64Array(n)
-  const halfV = new Float64Array(n)
-  for (let v = 0; v < n; v++) {
-    const b = boxes[v]!
-    halfU[v] = (sideways ? b.height : b.width) / 2
-    halfV[v] = (sideways ? b.width : b.height) / 2
-  }
+  const {halfU, halfV} = boxHalves(boxes, n, flow)
 
   // 1. Layers of H, then keep only the layers G uses.
   const {rank} = layerByWeightedSpan(h, (e) => (e < m ? 1 : 0))
@@ -118,8 +113,9 @@ export function layoutUpward(input: LayoutInput): Layout {
   // (visibility) order, centred, at most `edge` apart and strictly inside the side.
   const tailPort = new Float64Array(m)
   const headPort = new Float64Array(m)
-  spreadPorts(g, halfU, edgeKey, spacing.edge, true, tailPort)
-  spreadPorts(g, halfU, edgeKey, spacing.edge, false, headPort)
+  const byKey = (e: number): number => edgeKey[e]!
+  spreadPorts(g, halfU, spacing.edge, true, byKey, tailPort)
+  spreadPorts(g, halfU, spacing.edge, false, byKey, headPort)
 
   // Segments along each edge's chain of objects.
   const segCount = objectCount - n + m
@@ -153,9 +149,7 @@ export function layoutUpward(input: LayoutInput): Layout {
   }
 
   // 4. Coordinates across the flow; start from the visibility abscissae scaled to a typical step.
-  let widthSum = 0
-  for (let v = 0; v < n; v++) widthSum += 2 * halfU[v]!
-  const unit = (widthSum / n + spacing.node) / 2
+  const unit = typicalStep(halfU, spacing.node)
   const initial = new Float64Array(objectCount)
   for (let o = 0; o < objectCount; o++) initial[o] = key[o]! * unit
   const x = assignCoordinates(lg, initial, spacing.node, spacing.edge)
@@ -163,13 +157,7 @@ export function layoutUpward(input: LayoutInput): Layout {
   // 5. Bands along the flow.
   const bandHalf = new Float64Array(layerCount)
   for (let v = 0; v < n; v++) bandHalf[layerOf[v]!] = Math.max(bandHalf[layerOf[v]!]!, halfV[v]!)
-  const centre = new Float64Array(layerCount)
-  for (let l = 0; l < layerCount; l++) {
-    // Next to a layer of bends only (no box), half the gap: nothing there needs room for a label or
-    // an arrowhead, and any positive gap keeps the drawing crossing-free.
-    const gap = bandHalf[l - 1] === 0 || bandHalf[l] === 0 ? spacing.layer / 2 : spacing.layer
-    centre[l] = l === 0 ? bandHalf[0]! : centre[l - 1]! + bandHalf[l - 1]! + gap + bandHalf[l]!
-  }
+  const centre = bandCentres(bandHalf, spacing.layer)
   // Each object's column: from halfway to its left neighbour to halfway to its right neighbour. In a
   // band, everything belonging to an object (its box and ports, or its bend) stays strictly inside.
   const colLeft = new Float64Array(objectCount).fill(-Infinity)
@@ -184,22 +172,22 @@ export function layoutUpward(input: LayoutInput): Layout {
     }
   }
   const within = (o: number, u: number): boolean => colLeft[o]! < u && u < colRight[o]!
-  const uAt = (p: readonly [number, number], q: readonly [number, number], v: number): number =>
+  const uAt = (p: Readonly<Point>, q: Readonly<Point>, v: number): number =>
     p[0] + ((q[0] - p[0]) * (v - p[1])) / (q[1] - p[1])
 
-  const routes: Array<Array<[number, number]>> = []
+  const routes: Point[][] = []
   for (let e = 0; e < m; e++) {
     const t = g.tail[e]!
     const hd = g.head[e]!
     const lt = layerOf[t]!
     const lh = layerOf[hd]!
-    const pts: Array<[number, number]> = []
+    const pts: Point[] = []
     const pu = x[t]! + tailPort[e]!
     pts.push([pu, centre[lt]! + halfV[t]!])
     if (halfV[t]! < bandHalf[lt]!) pts.push([pu, centre[lt]! + bandHalf[lt]!])
     const qu = x[hd]! + headPort[e]!
     // Where the edge enters band l from below (the bend's lower point, or the head's port or stub).
-    const entry = (o: number): [number, number] => {
+    const entry = (o: number): Point => {
       if (o < bendStart[e + 1]!) {
         const l = layerOf[o]!
         return [x[o]!, centre[l]! - bandHalf[l]!]
@@ -218,7 +206,7 @@ export function layoutUpward(input: LayoutInput): Layout {
         prevPoint = -1
         continue
       }
-      const mid: [number, number] = [x[o]!, centre[l]!]
+      const mid: Point = [x[o]!, centre[l]!]
       const before = pts[pts.length - 1]!
       const after = entry(o + 1)
       const single =
@@ -240,7 +228,7 @@ export function layoutUpward(input: LayoutInput): Layout {
   }
 
   // 6. To SVG coordinates.
-  return orient(flow, g, x, layerOf, centre, boxes, routes)
+  return orient(flow, g, x, layerOf, centre, boxes, routes).layout
 }
 
 /** Object ids sorted by (layer, key, id): two stable counting sorts, O(objects + keys + layers). */
@@ -271,110 +259,4 @@ function checkInput(g: Digraph, h: Digraph, boxCount: number): void {
     }
   }
   if (boxCount < g.vertexCount) throw new Error('layout: a box size is missing for some vertex')
-}
-
-function spreadPorts(
-  g: Digraph,
-  halfU: Float64Array,
-  edgeKey: Int32Array,
-  gap: number,
-  out: boolean,
-  port: Float64Array
-): void {
-  const start = out ? g.outStart : g.inStart
-  const list = out ? g.outEdges : g.inEdges
-  for (let v = 0; v < g.vertexCount; v++) {
-    const k = start[v + 1]! - start[v]!
-    if (k === 0) continue
-    const edges = Array.from(list.subarray(start[v]!, start[v + 1]!)).sort((a, b) => edgeKey[a]! - edgeKey[b]! || a - b)
-    // k ports at most `gap` apart, spanning less than the side: |offset| <= (k-1)/2 * 2h/k < h.
-    const step = Math.min(gap, (2 * halfU[v]!) / k)
-    for (let i = 0; i < k; i++) port[edges[i]!] = (i - (k - 1) / 2) * step
-  }
-}
-
-/** Drop middle points of runs along the flow (three points with the same cross coordinate). */
-function dropStraightThrough(pts: Array<[number, number]>): Array<[number, number]> {
-  const out: Array<[number, number]> = [pts[0]!]
-  for (let i = 1; i < pts.length - 1; i++) {
-    const a = out[out.length - 1]!
-    const b = pts[i]!
-    const c = pts[i + 1]!
-    if (a[0] === b[0] && b[0] === c[0]) continue
-    out.push(b)
-  }
-  out.push(pts[pts.length - 1]!)
-  return out
-}
-
-/**
- * Internal (u, v) to SVG (x, y): up (u, -v); down (u, v); right (v, u); left (-v, u). Then translate
- * so the drawing starts at 0. End points are recomputed from the final box so that they lie on the
- * box's side exactly as a checker computes it (centre ± half size).
- */
-function orient(
-  flow: Flow,
-  g: Digraph,
-  x: Float64Array,
-  layerOf: Int32Array,
-  centre: Float64Array,
-  boxes: LayoutInput['boxes'],
-  routes: Array<Array<[number, number]>>
-): Layout {
-  const map = (u: number, v: number): [number, number] =>
-    flow === 'up' ? [u, -v] : flow === 'down' ? [u, v] : flow === 'right' ? [v, u] : [-v, u]
-  const n = g.vertexCount
-  let minX = Infinity
-  let minY = Infinity
-  let maxX = -Infinity
-  let maxY = -Infinity
-  const centres: Array<[number, number]> = []
-  for (let v = 0; v < n; v++) {
-    const c = map(x[v]!, centre[layerOf[v]!]!)
-    centres.push(c)
-    const b = boxes[v]!
-    minX = Math.min(minX, c[0] - b.width / 2)
-    maxX = Math.max(maxX, c[0] + b.width / 2)
-    minY = Math.min(minY, c[1] - b.height / 2)
-    maxY = Math.max(maxY, c[1] + b.height / 2)
-  }
-  const mapped = routes.map((pts) => pts.map(([u, v]) => map(u, v)))
-  for (const pts of mapped) {
-    for (const [px, py] of pts) {
-      minX = Math.min(minX, px)
-      maxX = Math.max(maxX, px)
-      minY = Math.min(minY, py)
-      maxY = Math.max(maxY, py)
-    }
-  }
-  const nodes = centres.map(([cx, cy], v) => ({
-    vertex: v,
-    x: cx - minX,
-    y: cy - minY,
-    width: boxes[v]!.width,
-    height: boxes[v]!.height,
-  }))
-  const edges = mapped.map((pts, e) => {
-    const points = pts.map(([px, py]): [number, number] => [px - minX, py - minY])
-    const tb = nodes[g.tail[e]!]!
-    const hb = nodes[g.head[e]!]!
-    const first = points[0]!
-    const last = points[points.length - 1]!
-    // Snap the along-flow coordinate of each end onto the box side.
-    if (flow === 'up') {
-      first[1] = tb.y - tb.height / 2
-      last[1] = hb.y + hb.height / 2
-    } else if (flow === 'down') {
-      first[1] = tb.y + tb.height / 2
-      last[1] = hb.y - hb.height / 2
-    } else if (flow === 'right') {
-      first[0] = tb.x + tb.width / 2
-      last[0] = hb.x - hb.width / 2
-    } else {
-      first[0] = tb.x - tb.width / 2
-      last[0] = hb.x + hb.width / 2
-    }
-    return {edge: e, points}
-  })
-  return {flow, width: maxX - minX, height: maxY - minY, nodes, edges}
 }

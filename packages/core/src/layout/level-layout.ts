@@ -26,7 +26,18 @@
 import type {Digraph} from '../graph/digraph.ts'
 import type {LevelItem} from '../level/level-planarity.ts'
 import {assignCoordinates, type LayeredGraph} from './coordinates.ts'
-import {defaultSpacing, type BoxSize, type Flow, type Layout, type Spacing} from './types.ts'
+import {
+  bandCentres,
+  boxHalves,
+  dropStraightThrough,
+  orient,
+  resolveSpacing,
+  SEGMENT_WEIGHT,
+  spreadPorts,
+  typicalStep,
+  type Point,
+} from './banded-drawing.ts'
+import type {BoxSize, Flow, Layout, Spacing} from './types.ts'
 
 export interface LevelLayoutInput {
   graph: Digraph
@@ -50,31 +61,16 @@ export interface LevelLayout {
   bands: Array<[number, number]>
 }
 
-const MIN_GAP = 1
-/** Segment weights by number of bend ends (0, 1, 2), as in layout-upward.ts. */
-const SEGMENT_WEIGHT = [1, 2, 8] as const
-
 export function layoutLevels(input: LevelLayoutInput): LevelLayout {
   const {graph: g, level, orders, boxes, flow} = input
   const n = g.vertexCount
   const m = g.edgeCount
-  const spacing: Spacing = {
-    layer: Math.max(MIN_GAP, input.spacing?.layer ?? defaultSpacing.layer),
-    node: Math.max(MIN_GAP, input.spacing?.node ?? defaultSpacing.node),
-    edge: Math.max(MIN_GAP, input.spacing?.edge ?? defaultSpacing.edge)
-  }
+  const spacing = resolveSpacing(input.spacing)
   if (boxes.length < n) throw new Error('layoutLevels: a box size is missing for some vertex')
   const layerCount = orders.length
   if (n === 0) return {layout: {flow, width: 0, height: 0, nodes: [], edges: []}, bands: []}
 
-  const sideways = flow === 'left' || flow === 'right'
-  const halfU = new Float64Array(n)
-  const halfV = new Float64Array(n)
-  for (let v = 0; v < n; v++) {
-    const b = boxes[v]!
-    halfU[v] = (sideways ? b.height : b.width) / 2
-    halfV[v] = (sideways ? b.width : b.height) / 2
-  }
+  const {halfU, halfV} = boxHalves(boxes, n, flow)
 
   // 1. Objects in the given orders; `bendAt` finds an edge's bend object on a level.
   const layers: Int32Array[] = []
@@ -127,8 +123,8 @@ export function layoutLevels(input: LevelLayoutInput): LevelLayout {
   // 2. Ports, ordered by the other end of each edge's first (or last) segment.
   const tailPort = new Float64Array(m)
   const headPort = new Float64Array(m)
-  spreadPorts(g, halfU, spacing.edge, g.outStart, g.outEdges, (e) => position[chains[e]![1]!]!, tailPort)
-  spreadPorts(g, halfU, spacing.edge, g.inStart, g.inEdges, (e) => position[chains[e]![chains[e]!.length - 2]!]!, headPort)
+  spreadPorts(g, halfU, spacing.edge, true, (e) => position[chains[e]![1]!]!, tailPort)
+  spreadPorts(g, halfU, spacing.edge, false, (e) => position[chains[e]![chains[e]!.length - 2]!]!, headPort)
 
   let segCount = 0
   for (const c of chains) segCount += c.length - 1
@@ -158,9 +154,7 @@ export function layoutLevels(input: LevelLayoutInput): LevelLayout {
   })
 
   // 3. Cross-flow coordinates, starting from each object's place in its order at a typical step.
-  let widthSum = 0
-  for (let v = 0; v < n; v++) widthSum += 2 * halfU[v]!
-  const unit = (widthSum / n + spacing.node) / 2
+  const unit = typicalStep(halfU, spacing.node)
   const initial = new Float64Array(objectCount)
   for (let o = 0; o < objectCount; o++) initial[o] = position[o]! * unit
   const x = assignCoordinates(lg, initial, spacing.node, spacing.edge)
@@ -169,16 +163,12 @@ export function layoutLevels(input: LevelLayoutInput): LevelLayout {
   const bandHalf = new Float64Array(layerCount)
   for (let v = 0; v < n; v++) bandHalf[layerOf[v]!] = Math.max(bandHalf[layerOf[v]!]!, halfV[v]!)
   for (let l = 0; l < layerCount; l++) bandHalf[l] = Math.max(bandHalf[l]!, (input.minBand?.[l] ?? 0) / 2)
-  const centre = new Float64Array(layerCount)
-  for (let l = 0; l < layerCount; l++) {
-    const gap = bandHalf[l - 1] === 0 || bandHalf[l] === 0 ? spacing.layer / 2 : spacing.layer
-    centre[l] = l === 0 ? bandHalf[0]! : centre[l - 1]! + bandHalf[l - 1]! + gap + bandHalf[l]!
-  }
+  const centre = bandCentres(bandHalf, spacing.layer)
 
-  const routes: Array<Array<[number, number]>> = chains.map((c, e) => {
+  const routes: Point[][] = chains.map((c, e) => {
     const t = c[0]!
     const h = c[c.length - 1]!
-    const pts: Array<[number, number]> = []
+    const pts: Point[] = []
     const pu = x[t]! + tailPort[e]!
     const lt = layerOf[t]!
     pts.push([pu, centre[lt]! + halfV[t]!])
@@ -196,117 +186,29 @@ export function layoutLevels(input: LevelLayoutInput): LevelLayout {
     return simplify(pts)
   })
 
-  return orient(flow, g, x, layerOf, centre, bandHalf, boxes, routes)
-}
-
-function spreadPorts(
-  g: Digraph,
-  halfU: Float64Array,
-  gap: number,
-  start: Int32Array,
-  list: Int32Array,
-  otherEnd: (e: number) => number,
-  port: Float64Array
-): void {
-  for (let v = 0; v < g.vertexCount; v++) {
-    const k = start[v + 1]! - start[v]!
-    if (k === 0) continue
-    const edges = Array.from(list.subarray(start[v]!, start[v + 1]!)).sort((a, b) => otherEnd(a) - otherEnd(b) || a - b)
-    // k ports at most `gap` apart and strictly inside the side: |offset| ≤ (k−1)/2 · 2h/k < h.
-    const step = Math.min(gap, (2 * halfU[v]!) / k)
-    for (let i = 0; i < k; i++) port[edges[i]!] = (i - (k - 1) / 2) * step
-  }
-}
-
-/** Drop repeated points and middle points of runs along the flow. */
-function simplify(pts: Array<[number, number]>): Array<[number, number]> {
-  const unique = pts.filter((p, i) => i === 0 || p[0] !== pts[i - 1]![0] || p[1] !== pts[i - 1]![1])
-  const out: Array<[number, number]> = [unique[0]!]
-  for (let i = 1; i < unique.length - 1; i++) {
-    const a = out[out.length - 1]!
-    const b = unique[i]!
-    const c = unique[i + 1]!
-    if (a[0] === b[0] && b[0] === c[0]) continue
-    out.push(b)
-  }
-  out.push(unique[unique.length - 1]!)
-  return out
-}
-
-/** Internal (u across, v along) to SVG: up (u, −v); down (u, v); right (v, u); left (−v, u); then translate to 0. */
-function orient(
-  flow: Flow,
-  g: Digraph,
-  x: Float64Array,
-  layerOf: number[],
-  centre: Float64Array,
-  bandHalf: Float64Array,
-  boxes: ReadonlyArray<BoxSize>,
-  routes: Array<Array<[number, number]>>
-): LevelLayout {
-  const map = (u: number, v: number): [number, number] =>
-    flow === 'up' ? [u, -v] : flow === 'down' ? [u, v] : flow === 'right' ? [v, u] : [-v, u]
-  const n = g.vertexCount
-  let minX = Infinity
-  let minY = Infinity
-  let maxX = -Infinity
-  let maxY = -Infinity
-  const grow = (px: number, py: number): void => {
-    minX = Math.min(minX, px)
-    maxX = Math.max(maxX, px)
-    minY = Math.min(minY, py)
-    maxY = Math.max(maxY, py)
-  }
-  const centres: Array<[number, number]> = []
-  for (let v = 0; v < n; v++) {
-    const c = map(x[v]!, centre[layerOf[v]!]!)
-    centres.push(c)
-    grow(c[0] - boxes[v]!.width / 2, c[1] - boxes[v]!.height / 2)
-    grow(c[0] + boxes[v]!.width / 2, c[1] + boxes[v]!.height / 2)
-  }
-  const mapped = routes.map((pts) => pts.map(([u, v]) => map(u, v)))
-  for (const pts of mapped) for (const [px, py] of pts) grow(px, py)
   // A band thicker than its boxes (room for a caption) belongs to the drawing too: along the flow only.
-  const alongAxis = sidewaysAxis(flow)
-  for (let l = 0; l < centre.length; l++) {
-    for (const end of [centre[l]! - bandHalf[l]!, centre[l]! + bandHalf[l]!]) {
-      const p = map(0, end)
-      if (alongAxis === 0) grow(p[0], minY === Infinity ? 0 : minY)
-      else grow(minX === Infinity ? 0 : minX, p[1])
-    }
+  const bandEnds = new Float64Array(2 * layerCount)
+  for (let l = 0; l < layerCount; l++) {
+    bandEnds[2 * l] = centre[l]! - bandHalf[l]!
+    bandEnds[2 * l + 1] = centre[l]! + bandHalf[l]!
   }
-  const nodes = centres.map(([cx, cy], v) => ({vertex: v, x: cx - minX, y: cy - minY, width: boxes[v]!.width, height: boxes[v]!.height}))
-  const edges = mapped.map((pts, e) => {
-    const points = pts.map(([px, py]): [number, number] => [px - minX, py - minY])
-    const tb = nodes[g.tail[e]!]!
-    const hb = nodes[g.head[e]!]!
-    const first = points[0]!
-    const last = points[points.length - 1]!
-    // Each end exactly on its box's side, as centre ± half size.
-    if (flow === 'up') {
-      first[1] = tb.y - tb.height / 2
-      last[1] = hb.y + hb.height / 2
-    } else if (flow === 'down') {
-      first[1] = tb.y + tb.height / 2
-      last[1] = hb.y - hb.height / 2
-    } else if (flow === 'right') {
-      first[0] = tb.x + tb.width / 2
-      last[0] = hb.x - hb.width / 2
-    } else {
-      first[0] = tb.x - tb.width / 2
-      last[0] = hb.x + hb.width / 2
-    }
-    return {edge: e, points}
-  })
+  const {layout, map, origin} = orient(flow, g, x, layerOf, centre, boxes, routes, bandEnds)
+  // Each band in SVG coordinates, translated like the drawing.
+  const alongAxis = sidewaysAxis(flow)
   const bands = Array.from(centre, (c, l): [number, number] => {
     const a = map(0, c - bandHalf[l]!)
     const b = map(0, c + bandHalf[l]!)
-    const shift = alongAxis === 0 ? minX : minY
+    const shift = origin[alongAxis]
     const lo = Math.min(a[alongAxis], b[alongAxis]) - shift
     const hi = Math.max(a[alongAxis], b[alongAxis]) - shift
     return [lo, hi]
   })
-  return {layout: {flow, width: maxX - minX, height: maxY - minY, nodes, edges}, bands}
+  return {layout, bands}
+}
+
+/** Drop repeated points, then middle points of runs along the flow. */
+function simplify(pts: Point[]): Point[] {
+  return dropStraightThrough(pts.filter((p, i) => i === 0 || p[0] !== pts[i - 1]![0] || p[1] !== pts[i - 1]![1]))
 }
 
 /** The SVG axis along the flow: 1 (y) for up and down, 0 (x) for left and right. */
