@@ -481,19 +481,23 @@ function assemble(
     const tries: Side[] = want === 'right' ? ['right', 'left'] : ['left', 'right']
     const faces0 = traceFaces({graph: sk, rotation: base})
     let chosen: Side | null = null
+    let res0: ReturnType<typeof testUpwardEmbedded> | null = null
     for (const side of tries) {
-      if (testUpwardEmbedded({graph: sk, rotation: base}, {outerFace: faces0.faceOfDart[dartOn(side, r)]!}).ok) {
+      const t = testUpwardEmbedded({graph: sk, rotation: base}, {outerFace: faces0.faceOfDart[dartOn(side, r)]!})
+      if (t.ok) {
         chosen = side
+        res0 = t
         break
       }
     }
-    if (chosen === null) throw new Error(`internal: no outer face beside the reference edge of an ${comp.kind}-skeleton`)
+    if (chosen === null || res0 === null) throw new Error(`internal: no outer face beside the reference edge of an ${comp.kind}-skeleton`)
     const mirror = want !== null && chosen !== want
     const rotation = mirror ? base.map((x) => Int32Array.from(x).reverse()) : base
     const finalSide: Side = mirror ? want! : chosen
     const emb = {graph: sk, rotation}
-    const faces = traceFaces(emb)
-    const res = testUpwardEmbedded(emb, {outerFace: faces.faceOfDart[dartOn(finalSide, r)]!})
+    // unmirrored: the successful try above already is this test (same embedding, same outer face)
+    const faces = mirror ? traceFaces(emb) : faces0
+    const res = mirror ? testUpwardEmbedded(emb, {outerFace: faces.faceOfDart[dartOn(finalSide, r)]!}) : res0
     if (!res.ok) throw new Error('internal: mirrored skeleton lost its upward embedding')
     if (c === rootComp) rootOuterDart = 2 * comp.edges[r]!.real + (finalSide === 'left' ? 0 : 1)
     // children
