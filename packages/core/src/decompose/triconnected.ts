@@ -11,16 +11,24 @@
  *    the vertices sharing faces with x in a planar embedding of the piece, confirmed by one search
  *    (planarPairFinder); otherwise y as an articulation point of the piece minus x (one DFS, O(m)
  *    per x). One component of piece − {x, y} is split off with a new virtual edge {x, y} in both
- *    halves; a piece without a separation pair is triconnected (R);
+ *    halves; a piece without a separation pair is triconnected (R). Only the first planar piece
+ *    of a line of descent runs the planarity test: the bond, polygon and split steps are
+ *    contractions and deletions, so each half's rotation is derived from its parent's in time
+ *    linear in the piece (each half's virtual edge follows a path through the other half);
+ *    Euler's formula checks every derived rotation;
  * 3. adjacent bonds and adjacent polygons are merged, which makes the result unique.
  * Complexity. A separation pair of a split half is one of the piece (the virtual edge stands for a
  * connected rest), so each piece keeps a cursor: vertices below it are known to lie in no
  * separation pair and are not tried again in its descendants. A vertex is shared by two halves only
  * when it is a pole of the split, so the failed tries number O(n + splits) and the successful ones
  * O(splits) = O(m), each costing O(m): O(m²) time in all, O(n²) on planar graphs (plus, on
- * planar pieces, Σ over faces of their size squared per piece for the candidates).
+ * planar pieces, Σ over faces of their size squared per piece for the candidates). That worst
+ * case stays: a split that peels a small part off a large piece still re-indexes the large rest.
+ * What is linear per piece in practice is the constant: typed arrays reused across pieces, no
+ * per-piece planarity test (above). On the 10,000-vertex thinned grid of bench/upward.ts the
+ * largest block (29,023 edges) needs 30 pieces.
  */
-import {createDigraph} from '../graph/digraph.ts'
+import {createDigraph, type Digraph} from '../graph/digraph.ts'
 import {dartHead, traceFaces} from '../embedding/rotation-system.ts'
 import {testPlanarity} from '../planarity/test-planarity.ts'
 
@@ -54,11 +62,81 @@ export interface TriconnectedComponents {
   readonly links: readonly VirtualLink[]
 }
 
+interface Piece {
+  items: Item[]
+  cursor: number
+  rot: Map<number, Item[]> | null
+}
+
+/**
+ * A rotation after items were replaced (swap: item -> its stand-in, or null when deleted) and
+ * the vertices `gone` left the piece. O(size of the rotation).
+ */
+function rerouted(rot: Map<number, Item[]>, swap: ReadonlyMap<Item, Item | null>, gone: readonly number[]): Map<number, Item[]> {
+  const out = new Map<number, Item[]>()
+  for (const [v, seq] of rot) {
+    const next: Item[] = []
+    for (const it of seq) {
+      const r = swap.get(it)
+      if (r === undefined) next.push(it)
+      else if (r !== null) next.push(r)
+    }
+    out.set(v, next)
+  }
+  for (const v of gone) out.delete(v)
+  return out
+}
+
+/**
+ * The first and last items of some path from x to y whose inner vertices all have comp = side
+ * (a direct x–y item counts when side is 0), by a search from x. The piece is biconnected and
+ * {x, y} separates it, so both sides have one.
+ */
+function pathEnds(
+  x: number,
+  y: number,
+  side: number,
+  comp: Uint8Array,
+  adjStart: Int32Array,
+  adj: Int32Array,
+  other: (item: number, v: number) => number
+): [number, number] {
+  const rootItem = new Map<number, number>()
+  const queue: number[] = []
+  for (let p = adjStart[x]!; p < adjStart[x + 1]!; p++) {
+    const i = adj[p]!
+    const w = other(i, x)
+    if (w === y) {
+      if (side === 0) return [i, i]
+      continue
+    }
+    if (comp[w] === side && !rootItem.has(w)) {
+      rootItem.set(w, i)
+      queue.push(w)
+    }
+  }
+  for (let q = 0; q < queue.length; q++) {
+    const v = queue[q]!
+    for (let p = adjStart[v]!; p < adjStart[v + 1]!; p++) {
+      const i = adj[p]!
+      const w = other(i, v)
+      if (w === y) return [rootItem.get(v)!, i]
+      if (comp[w] === side && !rootItem.has(w)) {
+        rootItem.set(w, rootItem.get(v)!)
+        queue.push(w)
+      }
+    }
+  }
+  throw new Error('internal: no path between the poles of a split')
+}
+
 interface Item {
   a: number
   b: number
   real: number
   virtual: number
+  /** Scratch: the item's index in the piece that holds it now (set by PieceIndex.build). */
+  at?: number
 }
 
 /** Thrown by triconnectedComponents when its `stop` callback says so; callers catch it. */
@@ -85,7 +163,9 @@ export function triconnectedComponents(
   }
   let virtuals = 0
   const finals: Array<{kind: ComponentKind; items: Item[]}> = []
-  const work: Array<{items: Item[]; cursor: number}> = [{items: edges.map(([a, b], i) => ({a, b, real: i, virtual: -1})), cursor: 0}]
+  // rot: a planar rotation of the piece (items around each input vertex, clockwise), handed down
+  // from the piece it was split from; null until a planarity test has given one
+  const work: Piece[] = [{items: edges.map(([a, b], i) => ({a, b, real: i, virtual: -1})), cursor: 0, rot: null}]
   // scratch indexed by input vertex id, shared by all pieces (no per-piece maps)
   const ix = new PieceIndex(n)
 
@@ -94,6 +174,7 @@ export function triconnectedComponents(
     if (stop?.() === true) throw new DecompositionStopped()
     const piece = work.pop()!
     let items = piece.items
+    let rot = piece.rot
     // 1-2. series-parallel rounds: split off bonds of parallel items and polygons of degree-2 chains
     // until neither is left (each split is at a separation pair, so the cursor stays valid)
     let done: ComponentKind | null = null
@@ -107,6 +188,7 @@ export function triconnectedComponents(
       let changed = false
       if (groups.count < items.length) {
         changed = true
+        const swap = new Map<Item, Item | null>()
         const kept: Item[] = []
         for (let g = 0; g < groups.count; g++) {
           const first = groups.members[groups.start[g]!]!
@@ -121,9 +203,14 @@ export function triconnectedComponents(
           const v = virtuals++
           bond.push({a, b, real: -1, virtual: v})
           finals.push({kind: 'P', items: bond})
-          kept.push({a, b, real: -1, virtual: v})
+          const stand = {a, b, real: -1, virtual: v}
+          kept.push(stand)
+          // the bond's first item's curve now carries the virtual edge; the others are deleted
+          for (const it of bond) swap.set(it, null)
+          swap.set(items[first]!, stand)
         }
         items = kept
+        if (rot !== null) rot = rerouted(rot, swap, [])
         ix.build(items)
       }
       const {k, adjStart, adj, verts} = ix
@@ -136,33 +223,45 @@ export function triconnectedComponents(
       // maximal chains through degree-2 vertices, each between two branch vertices (local ids)
       const gone = new Uint8Array(items.length)
       const added: Item[] = []
+      const swap = new Map<Item, Item | null>()
+      const inner: number[] = []
       for (let v = 0; v < k; v++) {
         if (adjStart[v + 1]! - adjStart[v]! !== 2 || gone[adj[adjStart[v]!]!]) continue
         const chain: number[] = []
         const ends: number[] = []
+        const endItem: Item[] = []
         for (let side = 0; side < 2; side++) {
           let item = adj[adjStart[v]! + side]!, x = v
+          if (side === 0) inner.push(verts[v]!)
           for (;;) {
             chain.push(item)
             x = ix.other(item, x)
             if (adjStart[x + 1]! - adjStart[x]! !== 2) break
+            inner.push(verts[x]!)
             const p = adjStart[x]!
             item = adj[p] === item ? adj[p + 1]! : adj[p]!
           }
           ends.push(verts[x]!)
+          endItem.push(items[item]!)
         }
         for (const i of chain) gone[i] = 1
         const w = virtuals++
         const polygon = chain.map((i) => items[i]!)
         polygon.push({a: ends[0]!, b: ends[1]!, real: -1, virtual: w})
         finals.push({kind: 'S', items: polygon})
-        added.push({a: ends[0]!, b: ends[1]!, real: -1, virtual: w})
+        const stand = {a: ends[0]!, b: ends[1]!, real: -1, virtual: w}
+        added.push(stand)
+        // the chain's curve now carries the virtual edge: it keeps the end items' places
+        for (const it of polygon) swap.set(it, null)
+        swap.set(endItem[0]!, stand)
+        swap.set(endItem[1]!, stand)
         changed = true
       }
       if (added.length > 0) {
         const rest = items.filter((_, i) => !gone[i])
         for (const it of added) rest.push(it)
         items = rest
+        if (rot !== null) rot = rerouted(rot, swap, inner)
       }
       if (!changed) break
     }
@@ -181,7 +280,30 @@ export function triconnectedComponents(
     let found: {x: number; y: number} | null = null
     // On a planar piece only vertices sharing faces with x can pair with it (below); else every x
     // is tried with one DFS of the piece minus x.
-    const pairFor = planarPairFinder(k, ia, ib, adjStart, adj, other)
+    const L = items.length
+    const pairs: Array<[number, number]> = new Array<[number, number]>(L)
+    for (let i = 0; i < L; i++) pairs[i] = [ia[i]!, ib[i]!]
+    const pg = createDigraph(k, pairs)
+    let rotation: Int32Array[] | null = null
+    if (rot !== null) {
+      // a planar piece's halves are planar (minors of it): their rotations are derived, not re-tested
+      rotation = new Array<Int32Array>(k)
+      for (let v = 0; v < k; v++) {
+        const seq = rot.get(verts[v]!)!
+        const r = new Int32Array(seq.length)
+        for (let j = 0; j < seq.length; j++) r[j] = seq[j]!.at!
+        rotation[v] = r
+      }
+    } else {
+      const planar = testPlanarity(pg)
+      if (planar.planar) {
+        rotation = planar.embedding.rotation.map((r) => Int32Array.from(r))
+        const r = new Map<number, Item[]>()
+        for (let v = 0; v < k; v++) r.set(verts[v]!, Array.from(rotation[v]!, (i) => items[i]!))
+        rot = r
+      }
+    }
+    const pairFor = rotation === null ? null : planarPairFinder(k, pg, rotation, adjStart, adj, other)
     for (const x of order) {
       if ((++tries & 31) === 0 && stop?.() === true) throw new DecompositionStopped()
       const y = pairFor !== null ? pairFor(x) : articulationWithout(k, adjStart, adj, other, x)
@@ -223,7 +345,43 @@ export function triconnectedComponents(
       else outside.push(items[i]!)
     }
     const cursor = verts[x]!
-    work.push({items: outside, cursor}, {items: inside, cursor})
+    let rotIn: Map<number, Item[]> | null = null, rotOut: Map<number, Item[]> | null = null
+    if (rot !== null) {
+      // each half's virtual edge is drawn along a path x ~> y through the other half, so it takes
+      // the places of that path's end items at x and y (a contraction: the half stays plane)
+      rotIn = new Map()
+      rotOut = new Map()
+      const throughOut = pathEnds(x, y, 0, comp, adjStart, adj, other)
+      const throughIn = pathEnds(x, y, 1, comp, adjStart, adj, other)
+      for (let v = 0; v < k; v++) {
+        if (v === x || v === y) continue
+        ;(comp[v] === 1 ? rotIn : rotOut).set(verts[v]!, rot.get(verts[v]!)!)
+      }
+      const isIn = (it: Item) => {
+        const i = it.at!
+        return comp[ia[i]!] === 1 || comp[ib[i]!] === 1
+      }
+      for (const [p, q] of [
+        [x, throughOut[0]!],
+        [y, throughOut[1]!]
+      ] as const) {
+        const seqIn: Item[] = [], seqOut: Item[] = []
+        const outEnd = items[q]!
+        const inEnd = items[p === x ? throughIn[0]! : throughIn[1]!]!
+        for (const it of rot.get(verts[p]!)!) {
+          if (isIn(it)) {
+            seqIn.push(it)
+            if (it === inEnd) seqOut.push(outside[0]!)
+          } else {
+            seqOut.push(it)
+            if (it === outEnd) seqIn.push(inside[0]!)
+          }
+        }
+        rotIn.set(verts[p]!, seqIn)
+        rotOut.set(verts[p]!, seqOut)
+      }
+    }
+    work.push({items: outside, cursor, rot: rotOut}, {items: inside, cursor, rot: rotIn})
   }
 
   return merge(finals, virtuals)
@@ -263,6 +421,7 @@ class PieceIndex {
     let k = 0
     for (let i = 0; i < L; i++) {
       const it = items[i]!
+      it.at = i
       if (mark[it.a] !== stamp) {
         mark[it.a] = stamp
         localOf[it.a] = k
@@ -351,34 +510,39 @@ class PieceIndex {
  */
 function planarPairFinder(
   k: number,
-  ia: Int32Array,
-  ib: Int32Array,
+  pg: Digraph,
+  rotation: readonly Int32Array[],
   adjStart: Int32Array,
   adj: Int32Array,
   other: (item: number, v: number) => number
-): ((x: number) => number) | null {
-  const pairs: Array<[number, number]> = new Array<[number, number]>(ia.length)
-  for (let i = 0; i < ia.length; i++) pairs[i] = [ia[i]!, ib[i]!]
-  const pg = createDigraph(k, pairs)
-  const planar = testPlanarity(pg)
-  if (!planar.planar) return null
-  const faces = traceFaces({graph: pg, rotation: planar.embedding.rotation})
+): (x: number) => number {
+  const faces = traceFaces({graph: pg, rotation})
   const F = faces.darts.length
+  // Euler's formula holds exactly for a plane rotation of a connected graph: a check on the
+  // derived rotations that costs nothing beside tracing the faces
+  if (F !== pg.edgeCount - k + 2) throw new Error('internal: a piece rotation is not plane')
   // vertices of each face, and faces around each vertex (each once)
+  // (CSR: fv[fvStart[f] ..] in walking order, fa[faStart[v] ..] in increasing face id)
   const onFace = new Int32Array(k).fill(-1)
-  const faceVerts: number[][] = faces.darts.map((ds, f) => {
-    const vs: number[] = []
-    for (const d of ds) {
+  const fvStart = new Int32Array(F + 1)
+  const fv = new Int32Array(2 * pg.edgeCount)
+  let fill = 0
+  for (let f = 0; f < F; f++) {
+    for (const d of faces.darts[f]!) {
       const v = dartHead(pg, d)
       if (onFace[v] !== f) {
         onFace[v] = f
-        vs.push(v)
+        fv[fill++] = v
       }
     }
-    return vs
-  })
-  const facesAt: number[][] = Array.from({length: k}, () => [])
-  for (let f = 0; f < F; f++) for (const v of faceVerts[f]!) facesAt[v]!.push(f)
+    fvStart[f + 1] = fill
+  }
+  const faStart = new Int32Array(k + 1)
+  for (let p = 0; p < fill; p++) faStart[fv[p]! + 1]!++
+  for (let v = 0; v < k; v++) faStart[v + 1]! += faStart[v]!
+  const faFill = faStart.slice(0, k)
+  const fa = new Int32Array(fill)
+  for (let f = 0; f < F; f++) for (let p = fvStart[f]!; p < fvStart[f + 1]!; p++) fa[faFill[fv[p]!]!++] = f
   const count = new Int32Array(k)
   const stamp = new Int32Array(k).fill(-1)
   const adjacent = new Int32Array(k).fill(-1)
@@ -408,8 +572,10 @@ function planarPairFinder(
   return (x: number) => {
     for (let p = adjStart[x]!; p < adjStart[x + 1]!; p++) adjacent[other(adj[p]!, x)] = x
     const cands: number[] = []
-    for (const f of facesAt[x]!) {
-      for (const y of faceVerts[f]!) {
+    for (let q = faStart[x]!; q < faStart[x + 1]!; q++) {
+      const f = fa[q]!
+      for (let p = fvStart[f]!; p < fvStart[f + 1]!; p++) {
+        const y = fv[p]!
         if (y === x) continue
         if (stamp[y] !== x) {
           stamp[y] = x
