@@ -104,9 +104,10 @@ export function layoutFallback(g: Digraph, settings: Readonly<FallbackSettings>)
   let best: Planarized | undefined
   let bestScore = Infinity
   for (let k = 0; k < orders.length; k++) {
-    // The fixed orders share the budget among themselves; the shuffles get what they leave.
-    const share = Math.max(0, deadline - now()) / ((k < fixedOrders ? fixedOrders : orders.length) - k)
-    const attempt = planWithOrder(g, settings, drawable, flipped, acyclic, orders[k]!, omitted, {maxMillis: share, now})
+    // Each order may use all that is left of the budget: a time share per order would cut an order short
+    // on a loaded machine while the whole budget still sufficed, and change the drawing. The work is
+    // bounded by the count of orders instead (3 fixed, shuffles only up to shuffleUpTo edges).
+    const attempt = planWithOrder(g, settings, drawable, flipped, acyclic, orders[k]!, omitted, {maxMillis: Math.max(0, deadline - now()), now})
     // A shuffle cut short by the budget is ignored, so the budget can only remove shuffles.
     if (k >= fixedOrders && !attempt.maximal) continue
     const score = attempt.against * 1e6 + attempt.crossings
