@@ -7,6 +7,7 @@
  * vertex of degree d).
  */
 import type {Digraph} from '../graph/digraph.ts'
+import type {LayeredGraph} from './coordinates.ts'
 import {defaultSpacing, type BoxSize, type Flow, type Layout, type Spacing} from './types.ts'
 
 /** Smallest gap accepted, so separations stay positive whatever the caller passes. */
@@ -36,6 +37,21 @@ export function boxHalves(boxes: ReadonlyArray<BoxSize>, n: number, flow: Flow):
     halfV[v] = (sideways ? b.width : b.height) / 2
   }
   return {halfU, halfV}
+}
+
+/** The objects of a layered drawing with room for `segCount` segments, filled in by the caller. */
+export function layeredGraph(objectCount: number, layers: Int32Array[], half: Float64Array, isBox: Uint8Array, segCount: number): LayeredGraph {
+  return {
+    objectCount,
+    layers,
+    half,
+    isBox,
+    segLow: new Int32Array(segCount),
+    segHigh: new Int32Array(segCount),
+    segLowPort: new Float64Array(segCount),
+    segHighPort: new Float64Array(segCount),
+    segWeight: new Float64Array(segCount),
+  }
 }
 
 /** One step across the flow for the coordinates' starting guess: half a typical box plus gap. */

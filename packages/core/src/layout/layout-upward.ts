@@ -18,6 +18,8 @@
  *    bend's own column, as one point, and enters its head box the same way. Collinear runs along the
  *    flow are merged, so an edge is straight wherever its ports and bends line up.
  * 6. The internal drawing (u across, v along the flow) is turned into SVG coordinates for the flow.
+ *    Bands, ports, merging of straight runs and this last step are shared with level-layout.ts
+ *    (banded-drawing.ts).
  *
  * Why no crossings: inside a band each object keeps strictly to its own column (halfway to each
  * neighbour), and columns are disjoint; between two bands every segment crosses the upper line of
@@ -34,18 +36,8 @@ import type {Digraph} from '../graph/digraph.ts'
 import {layerByWeightedSpan} from './layering.ts'
 import {dualOrder} from './dual-order.ts'
 import {pruneAugmentation} from './prune-augmentation.ts'
-import {assignCoordinates, type LayeredGraph} from './coordinates.ts'
-import {
-  bandCentres,
-  boxHalves,
-  dropStraightThrough,
-  orient,
-  resolveSpacing,
-  SEGMENT_WEIGHT,
-  spreadPorts,
-  typicalStep,
-  type Point,
-} from './banded-drawing.ts'
+import {assignCoordinates} from './coordinates.ts'
+import {bandCentres, boxHalves, dropStraightThrough, layeredGraph, orient, resolveSpacing, SEGMENT_WEIGHT, spreadPorts, typicalStep, type Point} from './banded-drawing.ts'
 import type {Layout, LayoutInput} from './types.ts'
 
 export function layoutUpward(input: LayoutInput): Layout {
@@ -119,17 +111,7 @@ export function layoutUpward(input: LayoutInput): Layout {
 
   // Segments along each edge's chain of objects.
   const segCount = objectCount - n + m
-  const lg: LayeredGraph = {
-    objectCount,
-    layers,
-    half,
-    isBox,
-    segLow: new Int32Array(segCount),
-    segHigh: new Int32Array(segCount),
-    segLowPort: new Float64Array(segCount),
-    segHighPort: new Float64Array(segCount),
-    segWeight: new Float64Array(segCount),
-  }
+  const lg = layeredGraph(objectCount, layers, half, isBox, segCount)
   let s = 0
   for (let e = 0; e < m; e++) {
     let prev = g.tail[e]!

@@ -5,7 +5,8 @@
  * gives it. Used for diagrams with tiers, where the levels are fixed by the author.
  *
  * Steps, the same as the upward layout's from step 3 on (layout-upward.ts; Sugiyama, Tagawa, Toda,
- * IEEE SMC 11, 1981, with the crossing-minimisation step replaced by the given orders):
+ * IEEE SMC 11, 1981, with the crossing-minimisation step replaced by the given orders; the shared
+ * steps live in banded-drawing.ts):
  * 1. Objects: the vertices, and one bend object per edge per level it passes, in the given orders.
  * 2. Ports: a vertex's out-edges leave its flow-facing side in the order of their next objects on the
  *    level above, its in-edges enter the other side in the order of their previous objects below.
@@ -25,18 +26,8 @@
  */
 import type {Digraph} from '../graph/digraph.ts'
 import type {LevelItem} from '../level/level-planarity.ts'
-import {assignCoordinates, type LayeredGraph} from './coordinates.ts'
-import {
-  bandCentres,
-  boxHalves,
-  dropStraightThrough,
-  orient,
-  resolveSpacing,
-  SEGMENT_WEIGHT,
-  spreadPorts,
-  typicalStep,
-  type Point,
-} from './banded-drawing.ts'
+import {assignCoordinates} from './coordinates.ts'
+import {bandCentres, boxHalves, dropStraightThrough, layeredGraph, orient, resolveSpacing, SEGMENT_WEIGHT, spreadPorts, typicalStep, type Point} from './banded-drawing.ts'
 import type {BoxSize, Flow, Layout, Spacing} from './types.ts'
 
 export interface LevelLayoutInput {
@@ -128,17 +119,7 @@ export function layoutLevels(input: LevelLayoutInput): LevelLayout {
 
   let segCount = 0
   for (const c of chains) segCount += c.length - 1
-  const lg: LayeredGraph = {
-    objectCount,
-    layers,
-    half,
-    isBox,
-    segLow: new Int32Array(segCount),
-    segHigh: new Int32Array(segCount),
-    segLowPort: new Float64Array(segCount),
-    segHighPort: new Float64Array(segCount),
-    segWeight: new Float64Array(segCount)
-  }
+  const lg = layeredGraph(objectCount, layers, half, isBox, segCount)
   let s = 0
   chains.forEach((c, e) => {
     for (let i = 0; i + 1 < c.length; i++) {
