@@ -28,6 +28,18 @@ export function cacheKey(parts: unknown): string {
   return sha256(canonicalJson(parts))
 }
 
+/**
+ * Keys for many long texts (whole files) under the same `parts` (settings, tool): each key is a
+ * SHA-256 of the canonical JSON of `parts`, a line break, and the text. The JSON is made once, and
+ * the text is hashed as it is rather than copied into a JSON string first (on a warm run that copy
+ * and the key sorting cost as much as the hash). Unambiguous: canonical JSON holds no raw line
+ * break (JSON escapes them), so the first one ends it.
+ */
+export function textKeys(parts: unknown): (text: string) => string {
+  const prefix = canonicalJson(parts) + '\n'
+  return (text) => createHash('sha256').update(prefix, 'utf8').update(text, 'utf8').digest('hex')
+}
+
 export function sha256(text: string): string {
   return createHash('sha256').update(text, 'utf8').digest('hex')
 }

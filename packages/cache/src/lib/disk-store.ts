@@ -13,8 +13,11 @@
  *
  * Bounded: when the entries add up to more than `maxBytes`, the least recently used (oldest mtime;
  * a hit refreshes it) are removed until they fit in 90% of it. Pruning scans the folder, O(entries
- * · log entries); it runs on the first write of a store, after every eighth of `maxBytes` written,
- * and when the caller asks (the CLI does, once, at the end of a run).
+ * · log entries); it runs on this thread's first write to the folder, after every eighth of
+ * `maxBytes` written, and when the caller asks (the CLI does, once, at the end of a run that wrote).
+ * Stores of one folder in one thread (the CLI's file cache and the plugin's diagram cache) share
+ * that account, so they do not each scan the folder. A run that only reads adds nothing, so it need
+ * not scan at all: `bytesWrittenInThread` tells the caller whether anything was written.
  */
 import {mkdirSync, readdirSync, readFileSync, renameSync, statSync, unlinkSync, utimesSync, writeFileSync} from 'node:fs'
 import path from 'node:path'
@@ -42,13 +45,25 @@ export const defaultMaxBytes = 50 * 1024 * 1024
 const magic = 'upright-cache 1'
 const keyPattern = /^[0-9a-f]{64}$/
 let tmpCounter = 0
+/** Per folder, in this thread: whether it was pruned yet, and the bytes written since. */
+const folders = new Map<string, {pruned: boolean; writtenSincePrune: number}>()
+let writtenInThread = 0
+
+/**
+ * Bytes of entries written by every disk store of this thread so far. A caller that sees no change
+ * over a run knows the run added nothing, so the folder is as far within its bound as before.
+ */
+export function bytesWrittenInThread(): number {
+  return writtenInThread
+}
 
 export function openDiskStore(options: Readonly<DiskStoreOptions>): DiskStore {
   const dir = path.resolve(options.dir)
   const maxBytes = options.maxBytes ?? defaultMaxBytes
   const stats = {reads: 0, hits: 0, corrupt: 0, writes: 0, writeErrors: 0, evicted: 0}
-  let writtenSincePrune = 0
-  let pruned = false
+  let folder = folders.get(dir)
+  if (!folder) folders.set(dir, (folder = {pruned: false, writtenSincePrune: 0}))
+  const account = folder
   const entryPath = (key: string) => path.join(dir, key.slice(0, 2), `${key}.entry`)
 
   const store: DiskStore = {
@@ -102,12 +117,14 @@ export function openDiskStore(options: Readonly<DiskStoreOptions>): DiskStore {
         }
         return
       }
-      writtenSincePrune += Buffer.byteLength(text)
-      if (!pruned || writtenSincePrune > maxBytes / 8) store.prune()
+      const bytes = Buffer.byteLength(text)
+      writtenInThread += bytes
+      account.writtenSincePrune += bytes
+      if (!account.pruned || account.writtenSincePrune > maxBytes / 8) store.prune()
     },
     prune() {
-      pruned = true
-      writtenSincePrune = 0
+      account.pruned = true
+      account.writtenSincePrune = 0
       const removed = pruneFolder(dir, maxBytes)
       stats.evicted += removed
       return removed

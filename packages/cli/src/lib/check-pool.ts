@@ -12,6 +12,7 @@
  * CLI starts check-worker.js directly.
  */
 import {threadId} from 'node:worker_threads'
+import {bytesWrittenInThread} from '@upright/cache'
 import {checkFile, type CheckFilesOptions, type FileReport} from './check-files.ts'
 import type {CacheChoice} from './file-cache.ts'
 import type {CheckTask, CheckTaskResult} from './check-worker.ts'
@@ -27,6 +28,8 @@ export interface PoolOptions {
   onProgress?: ((done: number, thread: number) => void) | undefined
   /** Filled with each thread's share of the work, when given (`--timing`). */
   timing?: Map<number, ThreadTiming> | undefined
+  /** Called with the bytes each thread's run of files wrote to the cache folder. */
+  onCacheWritten?: ((bytes: number) => void) | undefined
 }
 
 export async function checkFiles(files: readonly string[], options: Omit<CheckFilesOptions, 'cache'>, pool: PoolOptions): Promise<FileReport[]> {
@@ -36,11 +39,13 @@ export async function checkFiles(files: readonly string[], options: Omit<CheckFi
   const progress = (thread: number) => pool.onProgress?.(++done, thread)
   if (jobs === 1) {
     const start = performance.now()
+    const written = bytesWrittenInThread()
     const reports: FileReport[] = []
     for (const file of files) {
       reports.push(await checkFile(file, withCache))
       progress(threadId)
     }
+    pool.onCacheWritten?.(bytesWrittenInThread() - written)
     const diagrams = reports.reduce((n, r) => n + r.results.length, 0)
     pool.timing?.set(threadId, {thread: threadId, files: files.length, diagrams, busyMs: performance.now() - start, cpuSeconds: threadCpuSeconds()})
     return reports
@@ -62,6 +67,7 @@ export async function checkFiles(files: readonly string[], options: Omit<CheckFi
         const task: CheckTask = {files: run, options: withCache}
         const result = (await workers.run(task)) as CheckTaskResult
         for (const report of result.reports) progress(report.thread)
+        pool.onCacheWritten?.(result.cacheBytesWritten)
         if (pool.timing) record(pool.timing, result)
         return result.reports.map(fromPortable)
       })

@@ -4,6 +4,7 @@
  * threads and processes can share it).
  */
 import {threadId} from 'node:worker_threads'
+import {bytesWrittenInThread} from '@upright/cache'
 import {checkFile, type CheckFilesOptions} from './check-files.ts'
 import {toPortable, type PortableReport} from './portable-report.ts'
 import {threadCpuSeconds} from './thread-timing.ts'
@@ -22,11 +23,14 @@ export interface CheckTaskResult {
   busyMs: number
   /** CPU seconds this thread has used so far (start-up included). */
   cpuSeconds: number | undefined
+  /** Bytes this task wrote to the cache folder (0: the end-of-run prune has nothing to do for it). */
+  cacheBytesWritten: number
 }
 
 export default async function checkTask(task: CheckTask): Promise<CheckTaskResult> {
   const start = performance.now()
+  const written = bytesWrittenInThread()
   const reports: PortableReport[] = []
   for (const file of task.files) reports.push(toPortable(await checkFile(file, task.options)))
-  return {reports, thread: threadId, busyMs: performance.now() - start, cpuSeconds: threadCpuSeconds()}
+  return {reports, thread: threadId, busyMs: performance.now() - start, cpuSeconds: threadCpuSeconds(), cacheBytesWritten: bytesWrittenInThread() - written}
 }

@@ -10,7 +10,7 @@
  * file hits reads and hashes text and nothing more (check-files.ts loads the rest on a miss).
  */
 import {createRequire} from 'node:module'
-import {cacheKey, createResultCache, sourceFingerprint, type ResultCache} from '@upright/cache'
+import {createResultCache, sourceFingerprint, textKeys, type ResultCache} from '@upright/cache'
 import {defaultBudgetMillis, resolveLimits, type Flow, type Limits} from '@upright/core'
 import type {PortableResult} from './portable-report.ts'
 
@@ -56,16 +56,19 @@ export function fileKey(
   text: string,
   settings: {flow?: Flow | undefined; budget?: number | undefined; limits?: Readonly<Partial<Limits>> | undefined}
 ): string {
-  return cacheKey({
-    kind: 'markdown-file',
-    format: fileFormat,
-    tool: cache.tool,
-    text,
-    flow: settings.flow ?? null,
-    budget: settings.budget ?? defaultBudgetMillis,
-    limits: resolveLimits(settings.limits)
-  })
+  const flow = settings.flow ?? null
+  const budget = settings.budget ?? defaultBudgetMillis
+  // The settings are the same for every file of a run: resolve them once.
+  if (!lastParts || lastParts.tool !== cache.tool || lastParts.flow !== flow || lastParts.budget !== budget || lastParts.limits !== settings.limits) {
+    const parts = {kind: 'markdown-file', format: fileFormat, tool: cache.tool, flow, budget, limits: resolveLimits(settings.limits)}
+    lastParts = {tool: cache.tool, flow, budget, limits: settings.limits, key: textKeys(parts)}
+  }
+  return lastParts.key(text)
 }
+
+let lastParts:
+  | {tool: string; flow: Flow | null; budget: number; limits: Readonly<Partial<Limits>> | undefined; key: (text: string) => string}
+  | undefined
 
 const statuses = new Set(['upward', 'cycle', 'nonplanar', 'not-upward', 'syntax', 'too-large'])
 

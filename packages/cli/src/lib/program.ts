@@ -237,15 +237,17 @@ async function check(paths: string[], opts: CheckOpts, io: Io): Promise<number> 
   const jobs = opts.jobs ?? (files.length >= minFilesForWorkers ? availableParallelism() : 1)
   const bar = Boolean(io.stderr.isTTY) && files.length > 20 ? createProgressBar(io.stderr, files.length, 'checking') : undefined
   const timing = opts.timing ? new Map<number, ThreadTiming>() : undefined
+  let written = 0
   const reports: FileReport[] = await checkFiles(
     files,
     {base, flow: opts.flow, title: opts.title, budget: opts.budget, limits: opts.limits},
-    {jobs, cache, onProgress: bar ? (done) => bar.tick(done) : undefined, timing}
+    {jobs, cache, onProgress: bar ? (done) => bar.tick(done) : undefined, timing, onCacheWritten: (bytes) => (written += bytes)}
   )
   bar?.clear()
   const checkedAt = performance.now()
-  // Keep the folder within its bound (workers only add to it).
-  if (dir !== undefined) openFileCache({dir})?.prune()
+  // Keep the folder within its bound (workers only add to it). A run that wrote nothing left it as
+  // it found it, so it skips the scan of every entry (on a warm run, most of the time after the check).
+  if (dir !== undefined && written > 0) openFileCache({dir})?.prune()
 
   if (opts.format === 'json') {
     io.stdout.write(JSON.stringify(toJsonReport(reports), null, 2) + '\n')
