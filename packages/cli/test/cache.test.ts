@@ -3,7 +3,7 @@
  * folder costs only time, `--no-cache` leaves no trace, the default folder sits under the nearest
  * package.json, and the plugin reads what the CLI wrote.
  */
-import {existsSync, mkdtempSync, readdirSync, readFileSync, writeFileSync} from 'node:fs'
+import {existsSync, mkdtempSync, readdirSync, readFileSync, utimesSync, writeFileSync} from 'node:fs'
 import {tmpdir} from 'node:os'
 import path from 'node:path'
 import {describe, expect, it} from 'vitest'
@@ -95,5 +95,51 @@ describe('upright check with a cache folder', () => {
     expect(stats.diskHits).toBe(readFileSync(page, 'utf8').split('```upright').length - 1 + readFileSync(page, 'utf8').split(':::upright').length - 1)
     expect(shared).toEqual(await build(false))
     expect(shared.html).toContain('<svg')
+  })
+})
+
+describe('the cache folder over runs', () => {
+  const docs = temp('bounded-docs')
+  const tree = writeDocsTree(docs, {files: 6, diagrams: 10, seed: 13, maxVertices: 20, failing: 0.2})
+  // A temporary file left by a writer that died an hour and more ago: any scan of the folder removes it.
+  const leftover = (dir: string) => {
+    const file = path.join(dir, readdirSync(dir).find((name) => /^[0-9a-f]{2}$/.test(name))!, '.tmp-1-0-0')
+    writeFileSync(file, 'half an entry')
+    const old = new Date(Date.now() - 2 * 60 * 60 * 1000)
+    utimesSync(file, old, old)
+    return file
+  }
+
+  it('scans the folder after a run that wrote, not after one that only read', async () => {
+    const dir = temp('cache')
+    const cold = await cli(['check', '--cache-dir', dir, '--format', 'json', '.'], docs)
+    const stale = leftover(dir)
+    // Warm: every file a hit, nothing written, so the folder is as it was (within its bound).
+    expect(await cli(['check', '--cache-dir', dir, '--format', 'json', '.'], docs)).toEqual(cold)
+    expect(existsSync(stale)).toBe(true)
+    // One file edited: its entry is written, and the end of the run scans (and tidies) the folder.
+    const page = tree.files[2]!
+    const text = readFileSync(page, 'utf8')
+    writeFileSync(page, text + '\nOne more line of prose.\n')
+    try {
+      expect((await cli(['check', '--cache-dir', dir, '--format', 'json', '.'], docs)).code).toBe(cold.code)
+    } finally {
+      writeFileSync(page, text)
+    }
+    expect(existsSync(stale)).toBe(false)
+  })
+
+  it('reads a file with a byte order mark, or holding U+FFFD, as the same text without the mark', async () => {
+    const dir = temp('marks')
+    const body = '# Seed intake\n\n```upright\nsorting -> drying\ndrying -> sorting\n```\n'
+    writeFileSync(path.join(dir, 'a-plain.md'), body)
+    writeFileSync(path.join(dir, 'b-bom.md'), '\uFEFF' + body)
+    writeFileSync(path.join(dir, 'c-replacement.md'), body.replace('Seed intake', 'Seed intake \uFFFD'))
+    const report = JSON.parse((await cli(['check', '--no-cache', '--format', 'json', '.'], dir)).stdout) as {diagrams: Array<{file: string}>; errors?: unknown}
+    expect(report.errors).toBeUndefined()
+    const [plain, bom, replacement] = report.diagrams.map(({file, ...rest}) => rest)
+    expect(plain).toMatchObject({line: 3, column: 1, status: 'cycle'})
+    expect(bom).toEqual(plain)
+    expect(replacement).toEqual(plain)
   })
 })
