@@ -359,7 +359,7 @@ function embedBlock(edges: ReadonlyArray<readonly [number, number]>, expired: ()
     }
   }
   if (rootComp === -1) return null
-  return assemble(tc, infos, edges, s, rootComp, rootEdge)
+  return assemble(tc, infos, edges, s, rootComp, rootEdge, tree.linksOf)
 }
 
 /**
@@ -440,14 +440,10 @@ function assemble(
   edges: ReadonlyArray<readonly [number, number]>,
   s: number,
   rootComp: number,
-  rootEdge: number
+  rootEdge: number,
+  linksOf: readonly (readonly number[])[]
 ): BlockEmbedding {
   const C = tc.components.length
-  const linksOf: number[][] = Array.from({length: C}, () => [])
-  tc.links.forEach((l, i) => {
-    linksOf[l.node[0]]!.push(i)
-    linksOf[l.node[1]]!.push(i)
-  })
   const ref = new Int32Array(C).fill(-1)
   const required: Array<Side | null> = new Array<Side | null>(C).fill(null)
   const order = [rootComp]
@@ -611,6 +607,8 @@ function simpleRotation(kind: 'S' | 'P' | 'R', info: SkeletonInfo, ref: number):
 }
 
 interface RootedTree {
+  /** For each component, the indices of the tree links (tc.links) that touch it. */
+  linksOf: number[][]
   parent: Int32Array
   parentLink: Int32Array
   /** Components in BFS order from component 0. */
@@ -664,7 +662,7 @@ function rootTree(tc: TriconnectedComponents): RootedTree {
       stack.pop()
     }
   }
-  return {parent, parentLink, order, tin, tout}
+  return {linksOf, parent, parentLink, order, tin, tout}
 }
 
 /** For every component but the root: pole degrees in its pertinent part (below its parent link). */
