@@ -3,14 +3,14 @@
  * position with its own frame (the check's report lists them as one line each), and the suggested fix.
  */
 import type {FileReport} from './check-files.ts'
-import {codeFrame, painter, summaryLine, type TextStyle} from './format-text.ts'
+import {codeFrame, messageLine, painter, summaryLine, unreadableLine, type TextStyle} from './format-text.ts'
 
 export function formatExplain(reports: readonly FileReport[], style: TextStyle): string {
   const paint = painter(style)
   const out: string[] = []
   for (const report of reports) {
     if (report.error) {
-      out.push(`${paint('bold', report.display)}: ${paint('red', 'error')}: cannot read: ${report.error} [io]`)
+      out.push(unreadableLine(report.display, report.error, paint))
       continue
     }
     const lines = report.text.split(/\r\n|\r|\n/)
@@ -19,9 +19,7 @@ export function formatExplain(reports: readonly FileReport[], style: TextStyle):
       const verdict = result.status === 'upward' ? paint('green', 'drawable') : paint('red', result.status)
       out.push(`${paint('bold', `diagram ${i + 1}`)} at ${at}: ${verdict}`)
       for (const m of result.messages) {
-        const where = `${report.display}:${m.place.start.line}:${m.place.start.column}`
-        const severity = m.severity === 'error' ? paint('red', 'error') : paint('yellow', 'warning')
-        out.push(`  ${paint('bold', where)}: ${severity}: ${m.reason} ${paint('dim', `[${m.ruleId}]`)}`)
+        out.push(`  ${messageLine(report.display, m, paint)}`)
         out.push(...codeFrame(lines, m, paint).map((l) => `  ${l}`))
         if (m.note) out.push(`    ${paint('cyan', 'note')}: ${m.note}`)
         for (const r of m.related ?? []) {

@@ -18,20 +18,30 @@ export function painter(style: TextStyle): Paint {
   return (code, s) => (style.colour ? `\u001b[${ansi[code]}m${s}\u001b[0m` : s)
 }
 
+/** The line for a file that could not be read (check and explain alike). */
+export function unreadableLine(display: string, error: string, paint: Paint): string {
+  return `${paint('bold', display)}: ${paint('red', 'error')}: cannot read: ${error} [io]`
+}
+
+/** `path:line:col: error: reason [rule-id]`, the head line of one message. */
+export function messageLine(display: string, m: BlockMessage, paint: Paint): string {
+  const where = `${display}:${m.place.start.line}:${m.place.start.column}`
+  const severity = m.severity === 'error' ? paint('red', 'error') : paint('yellow', 'warning')
+  return `${paint('bold', where)}: ${severity}: ${m.reason} ${paint('dim', `[${m.ruleId}]`)}`
+}
+
 export function formatText(reports: readonly FileReport[], style: TextStyle): string {
   const paint = painter(style)
   const out: string[] = []
   for (const report of reports) {
     if (report.error) {
-      out.push(`${paint('bold', report.display)}: ${paint('red', 'error')}: cannot read: ${report.error} [io]`)
+      out.push(unreadableLine(report.display, report.error, paint))
       continue
     }
     const lines = report.text.split(/\r\n|\r|\n/)
     for (const result of report.results) {
       for (const m of result.messages) {
-        const where = `${report.display}:${m.place.start.line}:${m.place.start.column}`
-        const severity = m.severity === 'error' ? paint('red', 'error') : paint('yellow', 'warning')
-        out.push(`${paint('bold', where)}: ${severity}: ${m.reason} ${paint('dim', `[${m.ruleId}]`)}`)
+        out.push(messageLine(report.display, m, paint))
         out.push(...codeFrame(lines, m, paint))
         if (m.note) out.push(`  ${paint('cyan', 'note')}: ${m.note}`)
         for (const r of m.related ?? []) {
