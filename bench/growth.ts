@@ -25,6 +25,7 @@ import {checkDiagram, createDigraph, drawDiagram, parseDiagram, testPlanarity, t
 import {renderSvg} from '../packages/svg/src/index.ts'
 import {fitExponent, logLogChart} from './growth-chart.ts'
 import {mulberry32 as prng} from '../test/support/random.ts'
+import {general, singleSource, stGrid, withoutSink, type Family} from './support/grid-families.ts'
 
 const args = process.argv.slice(2)
 const maxIndex = args.indexOf('--max')
@@ -34,47 +35,6 @@ const budgetOnly = args.includes('--budget-only')
 const sizes = [10, 30, 100, 300, 1000, 3000, 10_000, 30_000, 100_000].filter((n) => n <= max)
 const noLimits = {maxVertices: Infinity, maxEdges: Infinity, maxTextBytes: Infinity, maxLineLength: Infinity, maxLabelLength: Infinity}
 
-
-interface Family {
-  n: number
-  edges: Array<[number, number]>
-}
-
-function stGrid(target: number, seed: number): Family {
-  const k = Math.max(2, Math.round(Math.sqrt(target)))
-  const m = Math.max(2, Math.round(target / k))
-  const rnd = prng(seed)
-  const id = (i: number, j: number) => i + k * j
-  const edges: Array<[number, number]> = []
-  for (let j = 0; j < m; j++) {
-    for (let i = 0; i < k; i++) {
-      if (i + 1 < k) edges.push([id(i, j), id(i + 1, j)])
-      if (j + 1 < m) edges.push([id(i, j), id(i, j + 1)])
-      if (i + 1 < k && j + 1 < m) edges.push(rnd() < 0.5 ? [id(i, j), id(i + 1, j + 1)] : [id(i + 1, j), id(i, j + 1)])
-    }
-  }
-  return {n: k * m, edges}
-}
-
-function singleSource(st: Family, seed: number): Family {
-  const rnd = prng(seed)
-  const incoming: number[][] = Array.from({length: st.n}, () => [])
-  st.edges.forEach(([, h], e) => incoming[h]!.push(e))
-  const keep = new Uint8Array(st.edges.length)
-  for (const ins of incoming) if (ins.length > 0) keep[ins[Math.floor(rnd() * ins.length)]!] = 1
-  for (let e = 0; e < st.edges.length; e++) if (!keep[e] && rnd() < 0.5) keep[e] = 1
-  return {n: st.n, edges: st.edges.filter((_, e) => keep[e])}
-}
-
-function withoutSink(st: Family): Family {
-  const t = st.n - 1
-  return {n: st.n - 1, edges: st.edges.filter(([, h]) => h !== t)}
-}
-
-function general(st: Family, seed: number): Family {
-  const rnd = prng(seed)
-  return {n: st.n, edges: st.edges.filter(() => rnd() < 0.6)}
-}
 
 /** Diagram text with vertex names shuffled and edges in shuffled order, so input order helps nothing. */
 function text(f: Family, seed: number): string {

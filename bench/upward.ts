@@ -35,25 +35,10 @@ function read(file: string): Digraph {
 // surviving with probability 1/2, seed 79: one source, many sinks, upward planar), budget --budget.
 const thinned = arg('--thinned', 0)
 if (thinned > 0) {
-  const {mulberry32} = await import('../test/support/random.ts')
-  const k = Math.max(2, Math.round(Math.sqrt(thinned)))
-  const rnd = mulberry32(78)
-  const id = (i: number, j: number) => i + k * j
-  const all: Array<[number, number]> = []
-  for (let j = 0; j < k; j++) {
-    for (let i = 0; i < k; i++) {
-      if (i + 1 < k) all.push([id(i, j), id(i + 1, j)])
-      if (j + 1 < k) all.push([id(i, j), id(i, j + 1)])
-      if (i + 1 < k && j + 1 < k) all.push(rnd() < 0.5 ? [id(i, j), id(i + 1, j + 1)] : [id(i + 1, j), id(i, j + 1)])
-    }
-  }
-  const keepRnd = mulberry32(79)
-  const incoming: number[][] = Array.from({length: k * k}, () => [])
-  all.forEach(([, h], e) => incoming[h]!.push(e))
-  const keep = new Uint8Array(all.length)
-  for (const ins of incoming) if (ins.length > 0) keep[ins[Math.floor(keepRnd() * ins.length)]!] = 1
-  for (let e = 0; e < all.length; e++) if (!keep[e] && keepRnd() < 0.5) keep[e] = 1
-  const g = createDigraph(k * k, all.filter((_, e) => keep[e]))
+  // The growth bench's thinned family, same seeds: one random in-edge per vertex kept, half the rest.
+  const {singleSource, stGrid} = await import('./support/grid-families.ts')
+  const fam = singleSource(stGrid(thinned, 78), 79)
+  const g = createDigraph(fam.n, fam.edges)
   const t0 = performance.now()
   const r = testUpwardPlanarity(g, {maxMillis: budget})
   const ms = performance.now() - t0
