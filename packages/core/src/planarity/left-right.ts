@@ -12,6 +12,8 @@
  */
 
 const NONE = -1
+/** Out-lists up to this length are sorted by insertion (see LocalSorter). */
+const SHORT = 32
 
 export interface SimpleGraph {
   readonly vertexCount: number
@@ -60,161 +62,152 @@ function run(g: SimpleGraph, embed: boolean, ids?: Int32Array): SimpleRotation |
   for (let v = 0; v < n; v++) adjStart[v + 1]! += adjStart[v]!
 
   // Memory layout. At 10^6 edges the arrays no longer fit in cache and each scattered read costs a
-  // cache (and often TLB) miss, so that count, not the operation count, sets the time (measured:
-  // bench/README.md, "Planarity"). Phase 1 therefore keeps everything about an edge end in one record
-  // of its incidence slot: slot s of vertex v (adjStart[v] <= s < adjStart[v+1], in edge id order)
-  // holds at slot[4s] the half-edge (2e at a[e], 2e+1 at b[e]), at slot[4s+1] the other end, and, once
-  // the edge is oriented away from v, its lowpoint and nesting depth at slot[4s+2], slot[4s+3] (NONE
-  // while not). An oriented edge is named by its source slot. Vertex data is one record too:
-  // vert[4v] height, vert[4v+1] parent slot, vert[4v+2] preorder number, vert[4v+3] scan position.
-  const slot = new Int32Array(4 * 2 * m)
+  // cache (and often TLB) miss, so the number of such reads that wait on each other, not the operation
+  // count, sets the time (measured: bench/README.md, "Planarity"). Incidence slot s of vertex v
+  // (adjStart[v] <= s < adjStart[v+1], in edge id order) holds slot[2s] the half-edge (2e at a[e],
+  // 2e+1 at b[e]) and slot[2s+1] the other end; it is only read.
+  const slot = new Int32Array(2 * 2 * m)
   {
     const fill = adjStart.slice(0, n)
     for (let e = 0; e < m; e++) {
       const x = g.a[e]!, y = g.b[e]!
-      const s = 4 * fill[x]!++, t = 4 * fill[y]!++
-      slot[s] = 2 * e; slot[s + 1] = y; slot[s + 2] = NONE; slot[s + 3] = NONE
-      slot[t] = 2 * e + 1; slot[t + 1] = x; slot[t + 2] = NONE; slot[t + 3] = NONE
+      const s = 2 * fill[x]!++, t = 2 * fill[y]!++
+      slot[s] = 2 * e; slot[s + 1] = y
+      slot[t] = 2 * e + 1; slot[t + 1] = x
     }
   }
 
   // ---- Phase 1: orientation ----------------------------------------------------------------------
-  const lowpt2 = new Int32Array(2 * m) // by source slot
-  const vert = new Int32Array(4 * n)
-  for (let v = 0; v < n; v++) { vert[4 * v] = NONE; vert[4 * v + 1] = NONE; vert[4 * v + 3] = adjStart[v]! }
-  const roots0: number[] = []
-  let preCount = 0
+  // What phase 1 learns about an edge goes to a record of 4 ints in `block`, laid out by DFS preorder:
+  // the vertex discovered p-th owns records blockStart[p] .. blockStart[p+1), one per incidence slot in
+  // slot order. Record b of an edge oriented away from that vertex holds block[4b] the other end's
+  // preorder number, block[4b+1] its lowpoint, block[4b+2] its second lowpoint while open and its
+  // nesting depth once finished, block[4b+3] the half-edge; block[4b] is NONE for any other slot.
+  // The records are written near the DFS frontier, so the renumbering below reads them in order.
+  // Per input vertex only vert[2v] height (NONE while unvisited) and vert[2v+1] preorder number: one
+  // scattered read per edge end, the one the DFS cannot avoid. The DFS stack holds the path, indexed
+  // by height: vertex, scan slot, end slot, slot-to-record offset, and the record of its parent edge.
+  const vert = new Int32Array(2 * n).fill(NONE)
+  const block = new Int32Array(4 * 2 * m)
+  const blockStart = new Int32Array(n + 1)
+  // By preorder number, written as vertices are discovered (in order).
+  const vertexOf = new Int32Array(n) // internal label -> input label
+  const height = new Int32Array(n)
   const vstack = new Int32Array(n)
+  const stScan = new Int32Array(n)
+  const stEnd = new Int32Array(n)
+  const stOffset = new Int32Array(n)
+  const stParent = new Int32Array(n)
+  const roots: number[] = [] // by preorder number
+  let preCount = 0
+  let blockTop = 0
 
-  // Nesting depth of a finished edge (source slot s, source v), and lowpoint propagation to the parent
-  // edge of v.
-  const finishOrient = (s: number, v: number): void => {
-    const lp = slot[4 * s + 2]!, lp2 = lowpt2[s]!
-    slot[4 * s + 3] = 2 * lp + (lp2 < vert[4 * v]! ? 1 : 0) // +1: chordal
-    const ps = vert[4 * v + 1]!
-    if (ps === NONE) return
-    const plp = slot[4 * ps + 2]!
+  // Nesting depth of finished record b (its source at height h), and lowpoint propagation to the
+  // source's parent edge, record pb (NONE at a root).
+  const finishOrient = (b: number, h: number, pb: number): void => {
+    const lp = block[4 * b + 1]!, lp2 = block[4 * b + 2]!
+    block[4 * b + 2] = 2 * lp + (lp2 < h ? 1 : 0) // +1: chordal
+    if (pb === NONE) return
+    const plp = block[4 * pb + 1]!
     if (lp < plp) {
-      lowpt2[ps] = Math.min(plp, lp2)
-      slot[4 * ps + 2] = lp
+      block[4 * pb + 2] = Math.min(plp, lp2)
+      block[4 * pb + 1] = lp
     } else if (lp > plp) {
-      lowpt2[ps] = Math.min(lowpt2[ps]!, lp)
+      block[4 * pb + 2] = Math.min(block[4 * pb + 2]!, lp)
     } else {
-      lowpt2[ps] = Math.min(lowpt2[ps]!, lp2)
+      block[4 * pb + 2] = Math.min(block[4 * pb + 2]!, lp2)
     }
+  }
+  // Discover w at height h (= its stack index) through parent edge record pb.
+  const discover = (w: number, h: number, pb: number): void => {
+    vert[2 * w] = h
+    vert[2 * w + 1] = preCount
+    vertexOf[preCount] = w
+    height[preCount] = h
+    blockStart[preCount++] = blockTop
+    const s0 = adjStart[w]!, s1 = adjStart[w + 1]!
+    vstack[h] = w; stScan[h] = s0; stEnd[h] = s1; stOffset[h] = blockTop - s0; stParent[h] = pb
+    blockTop += s1 - s0
   }
 
   for (let r = 0; r < n; r++) {
-    if (vert[4 * r] !== NONE) continue
-    roots0.push(r)
-    vert[4 * r] = 0
-    vert[4 * r + 2] = preCount++
-    let sp = 0
-    vstack[sp++] = r
-    while (sp > 0) {
-      const v = vstack[sp - 1]!
-      const s = vert[4 * v + 3]!
-      if (s < adjStart[v + 1]!) {
-        vert[4 * v + 3] = s + 1
+    if (vert[2 * r] !== NONE) continue
+    roots.push(preCount)
+    discover(r, 0, NONE)
+    let t = 0 // top of the stack, = height of the vertex on top
+    while (t >= 0) {
+      const s = stScan[t]!
+      if (s < stEnd[t]!) {
+        stScan[t] = s + 1
         // Which edges are new here: the graph is simple and every non-tree edge joins an ancestor and
         // a descendant, so w unvisited means a tree edge, w two or more levels up a back edge, and
         // anything else (the parent, or a finished descendant) was oriented from w's side already.
-        const w = slot[4 * s + 1]!
-        const hv = vert[4 * v]!, hw = vert[4 * w]!
-        if (hw !== NONE && hw >= hv - 1) continue
-        lowpt2[s] = hv
+        const w = slot[2 * s + 1]!
+        const hw = vert[2 * w]!
+        const b = s + stOffset[t]!
+        if (hw !== NONE && hw >= t - 1) { block[4 * b] = NONE; continue }
+        block[4 * b + 2] = t
+        block[4 * b + 3] = slot[2 * s]!
         if (hw === NONE) {
-          slot[4 * s + 2] = hv
-          vert[4 * w] = hv + 1
-          vert[4 * w + 1] = s
-          vert[4 * w + 2] = preCount++
-          vstack[sp++] = w
+          block[4 * b] = preCount; block[4 * b + 1] = t
+          discover(w, ++t, b)
         } else {
-          slot[4 * s + 2] = hw // back edge
-          finishOrient(s, v)
+          block[4 * b] = vert[2 * w + 1]!; block[4 * b + 1] = hw // back edge
+          finishOrient(b, t, stParent[t]!)
         }
       } else {
-        sp--
-        const ps = vert[4 * v + 1]!
-        if (ps !== NONE) finishOrient(ps, vstack[sp - 1]!)
+        const pb = stParent[t]!
+        t--
+        if (pb !== NONE) finishOrient(pb, t, stParent[t]!)
       }
     }
   }
+  blockStart[n] = blockTop
 
   // ---- Renumbering --------------------------------------------------------------------------------
   // Phases 2 and 3 walk the DFS tree again, taking out-edges in nesting order. Under the input's labels
   // that walk jumps all over memory, so vertices are relabelled by DFS preorder and edges by their
-  // place in the sorted out-lists (grouped by source, by nesting depth within a group, ties in edge id
-  // order): a subtree is then a contiguous range of labels and a vertex's out-edges a contiguous range
-  // of edge ids, and the later passes read memory mostly in order. O(n + m).
-  // First the oriented slots are packed, in slot order, into m records of the same array (record c is
-  // written at or before the slot it comes from, so in place): rec[4c] source, rec[4c+1] target (both
-  // as preorder numbers), rec[4c+2] lowpoint, rec[4c+3] nesting depth; the half-edge goes to half0[c],
-  // and a tree edge's record number replaces the slot in its target's parent field.
-  const rec = slot
-  const half0 = lowpt2.subarray(0, m) // lowpt2 is spent
-  const outStart = new Int32Array(n + 1)
-  {
-    let c = 0
-    for (let v = 0; v < n; v++) {
-      const pv = vert[4 * v + 2]!
-      const c0 = c
-      for (let s = adjStart[v]!; s < adjStart[v + 1]!; s++) {
-        const nest = slot[4 * s + 3]!
-        if (nest === NONE) continue
-        const w = slot[4 * s + 1]!
-        const h = slot[4 * s]!, lp = slot[4 * s + 2]!
-        if (vert[4 * w + 1] === s) vert[4 * w + 1] = c // tree edge: w's parent edge is record c
-        rec[4 * c] = pv; rec[4 * c + 1] = vert[4 * w + 2]!; rec[4 * c + 2] = lp; rec[4 * c + 3] = nest
-        half0[c++] = h
-      }
-      outStart[pv + 1] = c - c0
-    }
-  }
-  for (let v = 0; v < n; v++) outStart[v + 1]! += outStart[v]!
-  const byKey = new Int32Array(m)
-  const count = new Int32Array(4 * n + 5)
-  const perm = new Int32Array(m) // new edge id -> record
-  {
-    // Stable counting sort of the records by nesting depth (0 .. 2n + 1), then stable distribution
-    // into the out-lists. Records are in slot order, which within a vertex is edge id order: the tie
-    // order of the test's earlier versions (so its output is unchanged).
-    const range = 2 * n + 2
-    count.fill(0, 0, range + 2)
-    for (let c = 0; c < m; c++) count[rec[4 * c + 3]! + 1]!++
-    for (let k = 0; k < range; k++) count[k + 1]! += count[k]!
-    for (let c = 0; c < m; c++) byKey[count[rec[4 * c + 3]!]!++] = c
-    const fill = count
-    fill.set(outStart.subarray(0, n))
-    for (let i = 0; i < m; i++) { const c = byKey[i]!; perm[fill[rec[4 * c]!]!++] = c }
-  }
-  const newOf = lowpt2.subarray(m, 2 * m) // record -> new edge id
+  // place in the sorted out-lists (grouped by source, by nesting depth within a group, ties in slot
+  // order, which within a vertex is edge id order: the tie order of the test's earlier versions, so
+  // its output is unchanged): a subtree is then a contiguous range of labels and a vertex's out-edges
+  // a contiguous range of edge ids, and the later passes read memory mostly in order. O(n + m).
+  // The records are already grouped by source in preorder, so each group is sorted on the spot (a
+  // short local sort, see LocalSorter) and every array here is read and written in order. (Before,
+  // a global counting sort by nesting depth and a gather through the permutation cost two scattered
+  // passes more.)
   const src = new Int32Array(m) // oriented edge src -> dst, new labels from here on
   const dst = new Int32Array(m)
   const lowpt = new Int32Array(m)
   const nesting = new Int32Array(m)
-  const half = new Int32Array(m) // the input half-edge at src (2e at a[e], 2e+1 at b[e])
-  for (let i = 0; i < m; i++) {
-    const c = perm[i]!
-    newOf[c] = i
-    src[i] = rec[4 * c]!
-    dst[i] = rec[4 * c + 1]!
-    lowpt[i] = rec[4 * c + 2]!
-    nesting[i] = rec[4 * c + 3]!
-    half[i] = half0[c]!
+  const half = slot.subarray(0, m) // the input half-edge at src (2e at a[e], 2e+1 at b[e]); slot is spent
+  const parentEdge = new Int32Array(n).fill(NONE)
+  const outStart = new Int32Array(n + 1)
+  {
+    let maxDegree = 0
+    for (let p = 0; p < n; p++) maxDegree = Math.max(maxDegree, blockStart[p + 1]! - blockStart[p]!)
+    const key = new Int32Array(maxDegree), at = new Int32Array(maxDegree)
+    const sorter = new LocalSorter(maxDegree)
+    let c = 0
+    for (let pv = 0; pv < n; pv++) {
+      outStart[pv] = c
+      let len = 0
+      for (let b = blockStart[pv]!; b < blockStart[pv + 1]!; b++) {
+        if (block[4 * b] !== NONE) { key[len] = block[4 * b + 2]!; at[len++] = b }
+      }
+      sorter.sort(key, at, len)
+      for (let j = 0; j < len; j++) {
+        const b = at[j]!
+        const pw = block[4 * b]!
+        src[c] = pv; dst[c] = pw; lowpt[c] = block[4 * b + 1]!; nesting[c] = key[j]!; half[c] = block[4 * b + 3]!
+        if (pw > pv) parentEdge[pw] = c // out-edges to later preorder numbers are tree edges
+        c++
+      }
+    }
+    outStart[n] = c
   }
-  const height = new Int32Array(n)
-  const parentEdge = new Int32Array(n)
-  const vertexOf = new Int32Array(n) // internal label -> input label
-  for (let v = 0; v < n; v++) {
-    const pv = vert[4 * v + 2]!
-    vertexOf[pv] = v
-    height[pv] = vert[4 * v]!
-    const pc = vert[4 * v + 1]!
-    parentEdge[pv] = pc === NONE ? NONE : newOf[pc]!
-  }
-  const roots = roots0.map((r) => vert[4 * r + 2]!)
-  const idOf = embed && ids !== undefined ? half0 : null // ids[edge of half[i]]; half0 is spent
+  const byKey = new Int32Array(m)
+  const count = new Int32Array(4 * n + 5)
+  const idOf = embed && ids !== undefined ? slot.subarray(m, 2 * m) : null // ids[edge of half[i]]; spent
   if (idOf !== null) for (let i = 0; i < m; i++) idOf[i] = ids![half[i]! >> 1]!
 
   // sortOut for phase 3: stable counting sort of all edges by key[e] + offset (in 0 .. range), then
@@ -232,12 +225,12 @@ function run(g: SimpleGraph, embed: boolean, ids?: Int32Array): SimpleRotation |
   // ---- Phase 2: testing ---------------------------------------------------------------------------
   // A conflict pair is two intervals L = [lLow .. lHigh], R = [rLow .. rHigh] of return edges, each
   // linked from high to low through ref[]; an empty interval has both ends NONE.
-  // The slot records are spent after the renumbering: reuse them (fewer large allocations, each of
-  // which costs page faults and garbage-collector pressure at 10^6 edges).
-  const ref = slot.subarray(0, m).fill(NONE)
+  // The records are spent after the renumbering: reuse them (fewer large allocations, each of which
+  // costs page faults and garbage-collector pressure at 10^6 edges).
+  const ref = block.subarray(0, m).fill(NONE)
   const side = new Int8Array(m).fill(1)
-  const lowptEdge = slot.subarray(m, 2 * m)
-  const stackBottom = slot.subarray(2 * m, 3 * m)
+  const lowptEdge = block.subarray(m, 2 * m)
+  const stackBottom = block.subarray(2 * m, 3 * m)
   const lLow = new Int32Array(m + 1)
   const lHigh = new Int32Array(m + 1)
   const rLow = new Int32Array(m + 1)
@@ -379,13 +372,13 @@ function run(g: SimpleGraph, embed: boolean, ids?: Int32Array): SimpleRotation |
     }
   }
   for (let e = 0; e < m; e++) nesting[e] = nesting[e]! * side[e]!
-  const out = perm // spent since the renumbering
+  const out = new Int32Array(m)
   sortOut(nesting, 2 * n + 1, 4 * n + 3, src, out)
 
   // Cyclic doubly linked lists of half-edges around each vertex. Half-edge 2e sits at src[e],
   // 2e+1 at dst[e]. "next" is the clockwise successor.
-  const next = slot.subarray(3 * m, 5 * m) // spent since the renumbering
-  const prev = slot.subarray(5 * m, 7 * m)
+  const next = block.subarray(3 * m, 5 * m) // spent since the renumbering
+  const prev = block.subarray(5 * m, 7 * m)
   const first = new Int32Array(n).fill(NONE)
   for (let v = 0; v < n; v++) {
     const s = outStart[v]!, t = outStart[v + 1]!
@@ -452,4 +445,48 @@ function run(g: SimpleGraph, embed: boolean, ids?: Int32Array): SimpleRotation |
     } while (h !== f)
   }
   return {start, order}
+}
+
+/**
+ * Stable sort of one vertex's out-edges by nesting depth: parallel arrays key[0 .. len) (non-negative)
+ * and at[0 .. len), reordered together. Insertion sort for short lists (in cache, O(len^2) with len at
+ * most SHORT, so O(len)); LSD radix sort with 8-bit digits otherwise, O(len + 256) per digit and at
+ * most 4 digits, also O(len). Over all vertices: O(n + m).
+ */
+class LocalSorter {
+  private readonly key2: Int32Array
+  private readonly at2: Int32Array
+  private readonly digits = new Int32Array(257)
+  constructor(capacity: number) {
+    this.key2 = new Int32Array(capacity > SHORT ? capacity : 0)
+    this.at2 = new Int32Array(capacity > SHORT ? capacity : 0)
+  }
+
+  sort(key: Int32Array, at: Int32Array, len: number): void {
+    if (len <= SHORT) {
+      for (let i = 1; i < len; i++) {
+        const k = key[i]!, a = at[i]!
+        let j = i
+        while (j > 0 && key[j - 1]! > k) { key[j] = key[j - 1]!; at[j] = at[j - 1]!; j-- }
+        key[j] = k; at[j] = a
+      }
+      return
+    }
+    let max = 0
+    for (let i = 0; i < len; i++) max = Math.max(max, key[i]!)
+    let k0 = key, a0 = at, k1 = this.key2, a1 = this.at2
+    const count = this.digits
+    for (let shift = 0; shift < 32 && max >>> shift !== 0; shift += 8) {
+      count.fill(0)
+      for (let i = 0; i < len; i++) count[((k0[i]! >>> shift) & 255) + 1]!++
+      for (let d = 0; d < 256; d++) count[d + 1]! += count[d]!
+      for (let i = 0; i < len; i++) {
+        const j = count[(k0[i]! >>> shift) & 255]!++
+        k1[j] = k0[i]!; a1[j] = a0[i]!
+      }
+      const tk = k0; k0 = k1; k1 = tk
+      const ta = a0; a0 = a1; a1 = ta
+    }
+    if (k0 !== key) { key.set(k0.subarray(0, len)); at.set(a0.subarray(0, len)) }
+  }
 }
