@@ -7,26 +7,27 @@
  * 1. parallel edges are split off as bonds (P), and maximal chains through degree-2 vertices as
  *    polygons (S), in rounds until neither is left (a piece of one vertex pair is a bond, a cycle a
  *    polygon);
- * 2. then a separation pair {x, y} is looked for, x in increasing id: on a planar piece, y among
- *    the vertices sharing faces with x in a planar embedding of the piece, confirmed by one search
- *    (planarPairFinder); otherwise y as an articulation point of the piece minus x (one DFS, O(m)
- *    per x). One component of piece − {x, y} is split off with a new virtual edge {x, y} in both
- *    halves; a piece without a separation pair is triconnected (R). Only the first planar piece
- *    of a line of descent runs the planarity test: the bond, polygon and split steps are
- *    contractions and deletions, so each half's rotation is derived from its parent's in time
- *    linear in the piece (each half's virtual edge follows a path through the other half);
- *    Euler's formula checks every derived rotation;
+ * 2. then separation pairs {x, y} are looked for, x in increasing id. On a planar piece, y among
+ *    the vertices sharing faces with x in a planar embedding of the piece, each confirmed by one
+ *    search; one sweep over x peels off, at every pair found, each component of rest − {x, y} but
+ *    the largest, with a new virtual edge {x, y} in both (peelPlanar). Otherwise y as an
+ *    articulation point of the piece minus x (one DFS, O(m) per x), and the component of
+ *    piece − {x, y} holding the first vertex is split off. A piece without a separation pair is
+ *    triconnected (R). Only the first planar piece of a line of descent runs the planarity test:
+ *    the bond, polygon and split steps are contractions and deletions, so each part's rotation is
+ *    derived from its parent's in time linear in the piece (each part's virtual edge follows a path
+ *    through the other side); Euler's formula checks every derived rotation;
  * 3. adjacent bonds and adjacent polygons are merged, which makes the result unique.
- * Complexity. A separation pair of a split half is one of the piece (the virtual edge stands for a
+ * Complexity. A separation pair of a split part is one of the piece (the virtual edge stands for a
  * connected rest), so each piece keeps a cursor: vertices below it are known to lie in no
- * separation pair and are not tried again in its descendants. A vertex is shared by two halves only
+ * separation pair and are not tried again in its descendants. A vertex is shared by two parts only
  * when it is a pole of the split, so the failed tries number O(n + splits) and the successful ones
  * O(splits) = O(m), each costing O(m): O(m²) time in all, O(n²) on planar graphs (plus, on
  * planar pieces, Σ over faces of their size squared per piece for the candidates). That worst
- * case stays: a split that peels a small part off a large piece still re-indexes the large rest.
- * What is linear per piece in practice is the constant: typed arrays reused across pieces, no
- * per-piece planarity test (above). On the 10,000-vertex thinned grid of bench/upward.ts the
- * largest block (29,023 edges) needs 30 pieces.
+ * case stays (each confirmation and each peel searches the whole rest), but on a planar piece the
+ * rest is no longer re-indexed, re-reduced and re-embedded per pair: on the 10,000-vertex thinned
+ * grid of bench/upward.ts the large rest of the largest block (29,023 edges) is indexed twice
+ * instead of once per split (13 splits), and the whole decomposition about halves.
  */
 import {createDigraph, type Digraph} from '../graph/digraph.ts'
 import {dartHead, traceFaces} from '../embedding/rotation-system.ts'
@@ -85,49 +86,6 @@ function rerouted(rot: Map<number, Item[]>, swap: ReadonlyMap<Item, Item | null>
   }
   for (const v of gone) out.delete(v)
   return out
-}
-
-/**
- * The first and last items of some path from x to y whose inner vertices all have comp = side
- * (a direct x–y item counts when side is 0), by a search from x. The piece is biconnected and
- * {x, y} separates it, so both sides have one.
- */
-function pathEnds(
-  x: number,
-  y: number,
-  side: number,
-  comp: Uint8Array,
-  adjStart: Int32Array,
-  adj: Int32Array,
-  other: (item: number, v: number) => number
-): [number, number] {
-  const rootItem = new Map<number, number>()
-  const queue: number[] = []
-  for (let p = adjStart[x]!; p < adjStart[x + 1]!; p++) {
-    const i = adj[p]!
-    const w = other(i, x)
-    if (w === y) {
-      if (side === 0) return [i, i]
-      continue
-    }
-    if (comp[w] === side && !rootItem.has(w)) {
-      rootItem.set(w, i)
-      queue.push(w)
-    }
-  }
-  for (let q = 0; q < queue.length; q++) {
-    const v = queue[q]!
-    for (let p = adjStart[v]!; p < adjStart[v + 1]!; p++) {
-      const i = adj[p]!
-      const w = other(i, v)
-      if (w === y) return [rootItem.get(v)!, i]
-      if (comp[w] === side && !rootItem.has(w)) {
-        rootItem.set(w, rootItem.get(v)!)
-        queue.push(w)
-      }
-    }
-  }
-  throw new Error('internal: no path between the poles of a split')
 }
 
 interface Item {
@@ -273,20 +231,22 @@ export function triconnectedComponents(
     const {k, adjStart, adj, verts} = ix
     const ia = ix.ia, ib = ix.ib
     const other = (i: number, x: number) => (ia[i] === x ? ib[i]! : ia[i]!)
-    // 3. a separation pair, trying vertices in increasing id from the cursor
+    // 3. separation pairs, trying vertices in increasing id from the cursor
     const order: number[] = []
     for (let i = 0; i < k; i++) if (verts[i]! >= piece.cursor) order.push(i)
+    if (order.length === 0) {
+      // every vertex was tried in an ancestor piece, whose separation pairs include this one's
+      finals.push({kind: 'R', items})
+      continue
+    }
     order.sort((p, q) => verts[p]! - verts[q]!)
-    let found: {x: number; y: number} | null = null
-    // On a planar piece only vertices sharing faces with x can pair with it (below); else every x
-    // is tried with one DFS of the piece minus x.
     const L = items.length
     const pairs: Array<[number, number]> = new Array<[number, number]>(L)
     for (let i = 0; i < L; i++) pairs[i] = [ia[i]!, ib[i]!]
     const pg = createDigraph(k, pairs)
     let rotation: Int32Array[] | null = null
     if (rot !== null) {
-      // a planar piece's halves are planar (minors of it): their rotations are derived, not re-tested
+      // a planar piece's parts are planar (minors of it): their rotations are derived, not re-tested
       rotation = new Array<Int32Array>(k)
       for (let v = 0; v < k; v++) {
         const seq = rot.get(verts[v]!)!
@@ -303,10 +263,22 @@ export function triconnectedComponents(
         rot = r
       }
     }
-    const pairFor = rotation === null ? null : planarPairFinder(k, pg, rotation, adjStart, adj, other)
+    if (rotation !== null && rot !== null) {
+      // planar: one sweep peels off every part hanging at a separation pair (peelPlanar)
+      const candidates = planarCandidates(k, pg, rotation, adjStart, adj, other)
+      const tick = () => {
+        if ((++tries & 31) === 0 && stop?.() === true) throw new DecompositionStopped()
+      }
+      const parts = peelPlanar(piece, items, rot, ix, order, candidates, () => virtuals++, tick)
+      if (parts === null) finals.push({kind: 'R', items})
+      else work.push(...parts)
+      continue
+    }
+    // not planar: the first pair {x, y} found splits the piece in two
+    let found: {x: number; y: number} | null = null
     for (const x of order) {
       if ((++tries & 31) === 0 && stop?.() === true) throw new DecompositionStopped()
-      const y = pairFor !== null ? pairFor(x) : articulationWithout(k, adjStart, adj, other, x)
+      const y = articulationWithout(k, adjStart, adj, other, x)
       if (y !== -1) {
         found = {x, y}
         break
@@ -345,43 +317,7 @@ export function triconnectedComponents(
       else outside.push(items[i]!)
     }
     const cursor = verts[x]!
-    let rotIn: Map<number, Item[]> | null = null, rotOut: Map<number, Item[]> | null = null
-    if (rot !== null) {
-      // each half's virtual edge is drawn along a path x ~> y through the other half, so it takes
-      // the places of that path's end items at x and y (a contraction: the half stays plane)
-      rotIn = new Map()
-      rotOut = new Map()
-      const throughOut = pathEnds(x, y, 0, comp, adjStart, adj, other)
-      const throughIn = pathEnds(x, y, 1, comp, adjStart, adj, other)
-      for (let v = 0; v < k; v++) {
-        if (v === x || v === y) continue
-        ;(comp[v] === 1 ? rotIn : rotOut).set(verts[v]!, rot.get(verts[v]!)!)
-      }
-      const isIn = (it: Item) => {
-        const i = it.at!
-        return comp[ia[i]!] === 1 || comp[ib[i]!] === 1
-      }
-      for (const [p, q] of [
-        [x, throughOut[0]!],
-        [y, throughOut[1]!]
-      ] as const) {
-        const seqIn: Item[] = [], seqOut: Item[] = []
-        const outEnd = items[q]!
-        const inEnd = items[p === x ? throughIn[0]! : throughIn[1]!]!
-        for (const it of rot.get(verts[p]!)!) {
-          if (isIn(it)) {
-            seqIn.push(it)
-            if (it === inEnd) seqOut.push(outside[0]!)
-          } else {
-            seqOut.push(it)
-            if (it === outEnd) seqIn.push(inside[0]!)
-          }
-        }
-        rotIn.set(verts[p]!, seqIn)
-        rotOut.set(verts[p]!, seqOut)
-      }
-    }
-    work.push({items: outside, cursor, rot: rotOut}, {items: inside, cursor, rot: rotIn})
+    work.push({items: outside, cursor, rot: null}, {items: inside, cursor, rot: null})
   }
 
   return merge(finals, virtuals)
@@ -500,22 +436,24 @@ class PieceIndex {
 }
 
 /**
- * For a planar piece (simple, biconnected): a function giving for x some y with {x, y} a
- * separation pair, or -1. In a plane biconnected simple graph, {x, y} separates iff x and y share
+ * For a planar piece (simple, biconnected): a function giving for x every y that may form a
+ * separation pair with it. In a plane biconnected simple graph, {x, y} separates iff x and y share
  * two faces (three if they are adjacent, the two beside their edge not counting): a closed curve
  * through x, y and the two faces then has vertices on both sides (Whitney; common practice in
- * planar graph algorithms). Candidates are read off the faces around x (Σ over faces of their
- * size squared for all x) and each is confirmed by a search of the piece minus {x, y}, so a wrong
- * candidate costs time, never a wrong split. null when the piece is not planar.
+ * planar graph algorithms). Candidates are read off the faces around x (Σ over faces of their size
+ * squared for all x); the caller confirms each by a search, so a wrong candidate costs time, never a
+ * wrong split. The faces stay those of this piece while peelPlanar contracts parts of it into
+ * virtual edges: every face of the contracted graph lies in one face of this one, so its pairs stay
+ * among these candidates.
  */
-function planarPairFinder(
+function planarCandidates(
   k: number,
   pg: Digraph,
   rotation: readonly Int32Array[],
   adjStart: Int32Array,
   adj: Int32Array,
   other: (item: number, v: number) => number
-): (x: number) => number {
+): (x: number) => number[] {
   const faces = traceFaces({graph: pg, rotation})
   const F = faces.darts.length
   // Euler's formula holds exactly for a plane rotation of a connected graph: a check on the
@@ -546,48 +484,224 @@ function planarPairFinder(
   const count = new Int32Array(k)
   const stamp = new Int32Array(k).fill(-1)
   const adjacent = new Int32Array(k).fill(-1)
-  const seen = new Int32Array(k).fill(-1)
   let round = 0
-  const separates = (x: number, y: number): boolean => {
-    round++
-    seen[x] = seen[y] = round
-    let start = 0
-    while (start === x || start === y) start++
-    const stack = [start]
-    seen[start] = round
-    let reached = 3
-    while (stack.length > 0) {
-      const v = stack.pop()!
-      for (let p = adjStart[v]!; p < adjStart[v + 1]!; p++) {
-        const w = other(adj[p]!, v)
-        if (seen[w] !== round) {
-          seen[w] = round
-          reached++
-          stack.push(w)
-        }
-      }
-    }
-    return reached < k
-  }
   return (x: number) => {
-    for (let p = adjStart[x]!; p < adjStart[x + 1]!; p++) adjacent[other(adj[p]!, x)] = x
+    round++
+    for (let p = adjStart[x]!; p < adjStart[x + 1]!; p++) adjacent[other(adj[p]!, x)] = round
     const cands: number[] = []
     for (let q = faStart[x]!; q < faStart[x + 1]!; q++) {
       const f = fa[q]!
       for (let p = fvStart[f]!; p < fvStart[f + 1]!; p++) {
         const y = fv[p]!
         if (y === x) continue
-        if (stamp[y] !== x) {
-          stamp[y] = x
+        if (stamp[y] !== round) {
+          stamp[y] = round
           count[y] = 0
         }
         count[y]!++
-        if (count[y] === (adjacent[y] === x ? 3 : 2)) cands.push(y)
+        if (count[y] === (adjacent[y] === round ? 3 : 2)) cands.push(y)
       }
     }
-    for (const y of cands) if (separates(x, y)) return y
-    return -1
+    return cands
   }
+}
+
+/**
+ * Step 2 on a planar piece, for all its separation pairs in one pass instead of one split (and one
+ * re-indexing of the large rest) per pair. x runs in increasing id from the cursor; for each
+ * candidate y, the components of rest − {x, y} are labelled by one search; if there are several,
+ * every one but the largest is peeled off into a piece of its own, with a virtual edge {x, y} on
+ * both sides. The rest is the piece minus the parts peeled so far plus their
+ * virtual edges: a minor of the piece (each part contracted into an edge), so its separation pairs
+ * are the piece's, the faces of the piece still give every candidate (planarCandidates), and a
+ * vertex that pairs with nobody in the rest never will after further peels (the cursor).
+ * Each side's virtual edge is drawn along a path x ~> y through the other side, so it takes the
+ * places of that path's end items in the rotations at x and y (a contraction: both stay plane).
+ * Returns null when nothing separates (the piece is triconnected), else the rest, still to be
+ * reduced (its virtual edges may be parallel), then the parts peeled off.
+ * Cost: O(size of the piece) per tried candidate and per part peeled, on typed arrays.
+ */
+function peelPlanar(
+  piece: Piece,
+  items: Item[],
+  rot: Map<number, Item[]>,
+  ix: PieceIndex,
+  order: readonly number[],
+  candidates: (x: number) => number[],
+  newVirtual: () => number,
+  tick: () => void
+): Piece[] | null {
+  const {k, adjStart, adj, verts, ia, ib} = ix
+  const L = items.length
+  // items 0..L-1 are the piece's; L.. the rest's virtual edges added here (ends ea/eb, local ids)
+  const taken = new Uint8Array(L)
+  const extra: Item[] = [], ea: number[] = [], eb: number[] = [], eTaken: number[] = []
+  const extraAt: number[][] = new Array<number[]>(k)
+  const gone = new Uint8Array(k)
+  const itemOf = (i: number) => (i < L ? items[i]! : extra[i - L]!)
+  const isTaken = (i: number) => (i < L ? taken[i] === 1 : eTaken[i - L] === 1)
+  const far = (i: number, v: number) => (i < L ? (ia[i] === v ? ib[i]! : ia[i]!) : ea[i - L] === v ? eb[i - L]! : ea[i - L]!)
+  /** Calls f for each item of the rest at v (with its other end). */
+  const around = (v: number, f: (i: number, w: number) => void) => {
+    for (let p = adjStart[v]!; p < adjStart[v + 1]!; p++) {
+      const i = adj[p]!
+      if (taken[i] === 0) f(i, ia[i] === v ? ib[i]! : ia[i]!)
+    }
+    const ex = extraAt[v]
+    if (ex !== undefined) for (const i of ex) if (eTaken[i - L] === 0) f(i, far(i, v))
+  }
+  // component labels of rest − {x, y}: part[v] = 1 + component, -1 for x and y; members in CSR
+  const part = new Int32Array(k)
+  const members = new Int32Array(k)
+  const partStart: number[] = [0]
+  const label = (x: number, y: number): number => {
+    part.fill(0)
+    part[x] = part[y] = -1
+    partStart.length = 1
+    let fill = 0
+    for (let s = 0; s < k; s++) {
+      if (gone[s] || part[s] !== 0) continue
+      const id = partStart.length
+      part[s] = id
+      let head = fill
+      members[fill++] = s
+      while (head < fill) {
+        around(members[head++]!, (_, w) => {
+          if (part[w] === 0) {
+            part[w] = id
+            members[fill++] = w
+          }
+        })
+      }
+      partStart.push(fill)
+    }
+    return partStart.length - 1
+  }
+  // first and last item of a path x ~> y whose inner vertices satisfy inner(w); a direct item when direct
+  const via = new Int32Array(k)
+  const queue = new Int32Array(k)
+  const seenAt = new Int32Array(k)
+  let search = 0
+  const pathEnds = (x: number, y: number, inner: (w: number) => boolean, direct: boolean): [number, number] => {
+    search++
+    let tail = 0
+    let hit: [number, number] | null = null
+    around(x, (i, w) => {
+      if (hit !== null) return
+      if (w === y) {
+        if (direct) hit = [i, i]
+      } else if (inner(w) && seenAt[w] !== search) {
+        seenAt[w] = search
+        via[w] = i
+        queue[tail++] = w
+      }
+    })
+    for (let head = 0; hit === null && head < tail; head++) {
+      const v = queue[head]!
+      around(v, (i, w) => {
+        if (hit !== null) return
+        if (w === y) hit = [via[v]!, i]
+        else if (inner(w) && seenAt[w] !== search) {
+          seenAt[w] = search
+          via[w] = via[v]!
+          queue[tail++] = w
+        }
+      })
+    }
+    if (hit === null) throw new Error('internal: no path between the poles of a split')
+    return hit
+  }
+
+  const peeled: Piece[] = []
+  /** Moves component c of rest − {x, y} (labelled) into a piece of its own. */
+  const peel = (x: number, y: number, c: number) => {
+    const inPart = (w: number) => part[w] === c
+    const elsewhere = (w: number) => part[w] > 0 && part[w] !== c
+    const [outX, outY] = pathEnds(x, y, elsewhere, true)
+    const [inX, inY] = pathEnds(x, y, inPart, false)
+    const outEnd = [itemOf(outX), itemOf(outY)], inEnd = [itemOf(inX), itemOf(inY)]
+    const v = newVirtual()
+    const xa = verts[x]!, ya = verts[y]!
+    const mine: Item = {a: xa, b: ya, real: -1, virtual: v}
+    const theirs: Item = {a: xa, b: ya, real: -1, virtual: v}
+    const own: Item[] = [mine]
+    const ownRot = new Map<number, Item[]>()
+    for (let q = partStart[c - 1]!; q < partStart[c]!; q++) {
+      const w = members[q]!
+      around(w, (i) => {
+        if (i < L) taken[i] = 2
+        else eTaken[i - L] = 2
+      })
+    }
+    // collect in a second pass so each item is listed once (2 = being taken, 1 = taken)
+    for (let q = partStart[c - 1]!; q < partStart[c]!; q++) {
+      const w = members[q]!
+      const mark = (i: number) => {
+        if (i < L ? taken[i] === 2 : eTaken[i - L] === 2) {
+          if (i < L) taken[i] = 1
+          else eTaken[i - L] = 1
+          own.push(itemOf(i))
+        }
+      }
+      for (let p = adjStart[w]!; p < adjStart[w + 1]!; p++) mark(adj[p]!)
+      const ex = extraAt[w]
+      if (ex !== undefined) for (const i of ex) mark(i)
+      gone[w] = 1
+      ownRot.set(verts[w]!, rot.get(verts[w]!)!)
+      rot.delete(verts[w]!)
+    }
+    // the rest's new virtual edge, indexed like the piece's items
+    const j = L + extra.length
+    theirs.at = j
+    extra.push(theirs)
+    ea.push(x)
+    eb.push(y)
+    eTaken.push(0)
+    ;(extraAt[x] ??= []).push(j)
+    ;(extraAt[y] ??= []).push(j)
+    for (const [p, end] of [
+      [x, 0],
+      [y, 1]
+    ] as const) {
+      const seqIn: Item[] = [], seqOut: Item[] = []
+      for (const it of rot.get(verts[p]!)!) {
+        if (isTaken(it.at!)) {
+          seqIn.push(it)
+          if (it === inEnd[end]) seqOut.push(theirs)
+        } else {
+          seqOut.push(it)
+          if (it === outEnd[end]) seqIn.push(mine)
+        }
+      }
+      ownRot.set(verts[p]!, seqIn)
+      rot.set(verts[p]!, seqOut)
+    }
+    peeled.push({items: own, cursor: xa, rot: ownRot})
+  }
+
+  for (const x of order) {
+    if (gone[x]) continue
+    tick()
+    // a candidate that did not separate the rest will not after later peels (a minor's pairs are
+    // the piece's), and one that did no longer does: each is tried once
+    for (const y of candidates(x)) {
+      if (gone[y]) continue
+      const count = label(x, y)
+      if (count < 2) continue
+      // keep the largest component (the first of equal ones) as the rest
+      let keep = 1
+      for (let c = 2; c <= count; c++) if (partStart[c]! - partStart[c - 1]! > partStart[keep]! - partStart[keep - 1]!) keep = c
+      for (let c = 1; c <= count; c++) if (c !== keep) peel(x, y, c)
+    }
+    piece.cursor = verts[x]! + 1
+  }
+  if (peeled.length === 0) return null
+  const rest: Item[] = []
+  for (let i = 0; i < L; i++) if (taken[i] === 0) rest.push(items[i]!)
+  extra.forEach((it, j) => {
+    if (eTaken[j] === 0) rest.push(it)
+  })
+  return [{items: rest, cursor: piece.cursor, rot}, ...peeled]
 }
 
 /**
