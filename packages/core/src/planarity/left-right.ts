@@ -7,26 +7,22 @@
  * O(n + m) time and space. Every pass is iterative (explicit stacks) so a path of 10^6 vertices does
  * not overflow the call stack, and all state lives in typed arrays indexed by vertex or edge id.
  *
- * Input here is a SIMPLE undirected graph (no loops, no parallel edges); `test-planarity.ts` reduces a
- * general digraph to one and maps results back.
+ * Input here is a SIMPLE undirected graph (no loops, no parallel edges) as incidence lists
+ * (incidence.ts); `test-planarity.ts` reduces a general digraph to one and maps results back.
  */
+import {incidenceOfSimple, type Incidence, type SimpleGraph} from './incidence.ts'
 
 const NONE = -1
 /** Out-lists up to this length are sorted by insertion (see LocalSorter). */
 const SHORT = 32
 
-export interface SimpleGraph {
-  readonly vertexCount: number
-  /** Endpoints of edge i: (a[i], b[i]), a[i] !== b[i], no pair repeated. */
-  readonly a: Int32Array
-  readonly b: Int32Array
-}
+export type {SimpleGraph} from './incidence.ts'
 
 /**
- * Rotation of a planar simple graph: `order[start[v] .. start[v+1])` are the half-edges around v in one
- * consistent cyclic orientation (clockwise under the face-on-the-left convention of rotation-system.ts).
- * Half-edge 2e is edge e's end at a[e], 2e+1 its end at b[e] (so the edge id is h >> 1); or, when the
- * caller passed `ids`, the entries are ids[e] instead.
+ * Rotation of a planar graph: `order[start[v] .. start[v+1])` are the edge ends around v in one
+ * consistent cyclic orientation (clockwise under the face-on-the-left convention of rotation-system.ts),
+ * given by their labels in the incidence lists (see incidence.ts): half-edges of a simple graph (2e
+ * at a[e], 2e+1 at b[e], so the edge is h >> 1), or the caller's edge ids.
  */
 export interface SimpleRotation {
   readonly start: Int32Array
@@ -35,47 +31,42 @@ export interface SimpleRotation {
 
 /** Is the simple graph planar? No embedding is built (used by Kuratowski extraction). */
 export function isPlanarSimple(g: SimpleGraph): boolean {
-  return run(g, false) !== null
+  return run(incidenceOfSimple(g), false) !== null
 }
 
 /**
  * A rotation system if the simple graph is planar, else null. With `ids` (one per edge), the rotation
- * lists ids[e] for edge e instead of half-edges: testPlanarity passes the digraph's edge ids, so a
- * simple input's rotation needs no second pass.
+ * lists ids[e] for edge e instead of half-edges.
  */
 export function embedPlanarSimple(g: SimpleGraph, ids?: Int32Array): SimpleRotation | null {
-  return run(g, true, ids)
+  return run(incidenceOfSimple(g, ids), true)
 }
 
-function run(g: SimpleGraph, embed: boolean, ids?: Int32Array): SimpleRotation | null {
-  const n = g.vertexCount
-  const m = g.a.length
-  // Undirected incidence lists (CSR); degrees first.
-  const adjStart = new Int32Array(n + 1)
-  for (let e = 0; e < m; e++) { adjStart[g.a[e]! + 1]!++; adjStart[g.b[e]! + 1]!++ }
+/** isPlanarSimple on incidence lists built by the caller (e.g. incidenceOfDigraph). */
+export function isPlanarIncidence(inc: Incidence): boolean {
+  return run(inc, false) !== null
+}
+
+/** embedPlanarSimple on incidence lists built by the caller; the rotation lists their labels. */
+export function embedIncidence(inc: Incidence): SimpleRotation | null {
+  return run(inc, true)
+}
+
+function run(inc: Incidence, embed: boolean): SimpleRotation | null {
+  const n = inc.vertexCount
+  const m = inc.edgeCount
+  const {adjStart, slot} = inc
   // Euler's bound for simple planar graphs: m <= 3n - 6 when n >= 3 (counting only non-isolated vertices).
   if (m > 2) {
     let used = 0
-    for (let v = 1; v <= n; v++) if (adjStart[v] !== 0) used++
+    for (let v = 0; v < n; v++) if (adjStart[v + 1] !== adjStart[v]) used++
     if (m > 3 * used - 6) return null
   }
-  for (let v = 0; v < n; v++) adjStart[v + 1]! += adjStart[v]!
 
   // Memory layout. At 10^6 edges the arrays no longer fit in cache and each scattered read costs a
   // cache (and often TLB) miss, so the number of such reads that wait on each other, not the operation
-  // count, sets the time (measured: bench/README.md, "Planarity"). Incidence slot s of vertex v
-  // (adjStart[v] <= s < adjStart[v+1], in edge id order) holds slot[2s] the half-edge (2e at a[e],
-  // 2e+1 at b[e]) and slot[2s+1] the other end; it is only read.
-  const slot = new Int32Array(2 * 2 * m)
-  {
-    const fill = adjStart.slice(0, n)
-    for (let e = 0; e < m; e++) {
-      const x = g.a[e]!, y = g.b[e]!
-      const s = 2 * fill[x]!++, t = 2 * fill[y]!++
-      slot[s] = 2 * e; slot[s + 1] = y
-      slot[t] = 2 * e + 1; slot[t + 1] = x
-    }
-  }
+  // count, sets the time (measured: bench/README.md, "Planarity"). The incidence slots (label, other
+  // end; see incidence.ts) are only read.
 
   // ---- Phase 1: orientation ----------------------------------------------------------------------
   // What phase 1 learns about an edge goes to a record of 4 ints in `block`, laid out by DFS preorder:
@@ -179,7 +170,7 @@ function run(g: SimpleGraph, embed: boolean, ids?: Int32Array): SimpleRotation |
   const dst = new Int32Array(m)
   const lowpt = new Int32Array(m)
   const nesting = new Int32Array(m)
-  const half = slot.subarray(0, m) // the input half-edge at src (2e at a[e], 2e+1 at b[e]); slot is spent
+  const half = new Int32Array(m) // the label of the edge end at src (see incidence.ts)
   const parentEdge = new Int32Array(n).fill(NONE)
   const outStart = new Int32Array(n + 1)
   {
@@ -207,8 +198,6 @@ function run(g: SimpleGraph, embed: boolean, ids?: Int32Array): SimpleRotation |
   }
   const byKey = new Int32Array(m)
   const count = new Int32Array(4 * n + 5)
-  const idOf = embed && ids !== undefined ? slot.subarray(m, 2 * m) : null // ids[edge of half[i]]; spent
-  if (idOf !== null) for (let i = 0; i < m; i++) idOf[i] = ids![half[i]! >> 1]!
 
   // sortOut for phase 3: stable counting sort of all edges by key[e] + offset (in 0 .. range), then
   // stable distribution into the out-list of group[e]: out-lists sorted by key.
@@ -424,23 +413,20 @@ function run(g: SimpleGraph, embed: boolean, ids?: Int32Array): SimpleRotation |
   }
 
   // Output in the input's labels: internal vertex pv is vertexOf[pv]; internal half-edge 2i sits at
-  // src[i] and is reported in the a/b convention of the input (half[i] there, its twin at dst[i]), or
-  // as the id of its edge. Walked in internal vertex order (the lists read nearly in order) and written to the
-  // input vertex's range: scattered writes are cheap, scattered dependent reads are not.
+  // src[i] and is reported by its slot label there (half[i]); its twin at dst[i] by the same label
+  // when labels are edge ids, else by the twin half-edge half[i] ^ 1. Walked in internal vertex order
+  // (the lists read nearly in order) and written to the input vertex's range: scattered writes are
+  // cheap, scattered dependent reads are not.
   const start = adjStart // the degree prefix sums, as the output needs them
   const order = new Int32Array(2 * m)
+  const twin = inc.labelsAreIds ? 0 : 1
   for (let pv = 0; pv < n; pv++) {
     const f = first[pv]!
     if (f === NONE) continue
     let k = start[vertexOf[pv]!]!
     let h = f
-    if (idOf !== null) {
-      do { order[k++] = idOf[h >> 1]!; h = next[h]! } while (h !== f)
-      continue
-    }
     do {
-      const i = h >> 1
-      order[k++] = half[i]! ^ (h & 1)
+      order[k++] = half[h >> 1]! ^ (h & twin)
       h = next[h]!
     } while (h !== f)
   }

@@ -14,18 +14,32 @@
 import type {Digraph} from '../graph/digraph.ts'
 import {flatRotationSystem, type RotationSystem} from '../embedding/rotation-system.ts'
 import type {PlanarityResult} from './index.ts'
-import {embedPlanarSimple, type SimpleRotation} from './left-right.ts'
+import {embedIncidence, embedPlanarSimple, isPlanarIncidence, isPlanarSimple, type SimpleRotation} from './left-right.ts'
+import {incidenceOfDigraph} from './incidence.ts'
 import {classifySubdivision, minimalNonplanarEdges} from './kuratowski.ts'
 import {simplify, type Simplified} from './simplify.ts'
 
 export function testPlanarity(g: Digraph): PlanarityResult {
-  const s = simplify(g)
-  // No loops and no parallel edges: the simple graph's rotation, listed by g's edge ids, is g's.
-  const plain = s.parallel.length === 0 && s.loops.length === 0
-  const rot = embedPlanarSimple(s.simple, plain ? s.original : undefined)
-  if (rot !== null) {
-    return {planar: true, embedding: plain ? flatRotationSystem(g, rot.start, rot.order) : liftRotation(g, s, rot)}
+  // No loops and no parallel edges (the usual case): the incidence lists come straight from g, labelled
+  // by g's edge ids, and the rotation is g's as it stands.
+  const inc = incidenceOfDigraph(g)
+  if (inc !== null) {
+    const rot = embedIncidence(inc)
+    if (rot !== null) return {planar: true, embedding: flatRotationSystem(g, rot.start, rot.order)}
+    return kuratowskiOf(simplify(g))
   }
+  const s = simplify(g)
+  const rot = embedPlanarSimple(s.simple)
+  return rot !== null ? {planar: true, embedding: liftRotation(g, s, rot)} : kuratowskiOf(s)
+}
+
+/** Is g's underlying graph planar? The decision alone (no embedding, no certificate). O(n + m). */
+export function isPlanar(g: Digraph): boolean {
+  const inc = incidenceOfDigraph(g)
+  return inc !== null ? isPlanarIncidence(inc) : isPlanarSimple(simplify(g).simple)
+}
+
+function kuratowskiOf(s: Simplified): PlanarityResult {
   const k = classifySubdivision(s.simple, minimalNonplanarEdges(s.simple))
   const edges = Array.from(k.edges, (e) => s.original[e]!).sort((x, y) => x - y)
   return {planar: false, kuratowski: {type: k.type, branch: k.branch, edges}}

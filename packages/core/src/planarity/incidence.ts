@@ -1,0 +1,111 @@
+/**
+ * Undirected incidence lists (CSR) for the left-right test, built straight from its input.
+ *
+ * Slot s of vertex v (adjStart[v] <= s < adjStart[v+1]) holds slot[2s] a label of the edge end and
+ * slot[2s+1] the other end. A vertex's slots are in the order of the simple graph's edge ids, which
+ * is what fixes the DFS, the tie order of the nesting sort and so the rotation: both builders below
+ * give the same slots for the same graph.
+ *
+ * incidenceOfDigraph reads a digraph that has no loops and no parallel edges directly, in the edge
+ * order `simplify` would give it, so that case skips the simple graph's arrays and one scattered pass
+ * over them (at 10^6 edges each scattered pass costs tens of nanoseconds per edge: bench/README.md,
+ * "Planarity"). O(n + m) either way.
+ */
+import type {Digraph} from '../graph/digraph.ts'
+
+export interface SimpleGraph {
+  readonly vertexCount: number
+  /** Endpoints of edge i: (a[i], b[i]), a[i] !== b[i], no pair repeated. */
+  readonly a: Int32Array
+  readonly b: Int32Array
+}
+
+export interface Incidence {
+  readonly vertexCount: number
+  readonly edgeCount: number
+  readonly adjStart: Int32Array
+  readonly slot: Int32Array
+  /**
+   * True: an edge's label is the same at both ends (an edge id of the caller's). False: half-edges,
+   * 2e at the end a[e] and 2e+1 at b[e] of simple edge e.
+   */
+  readonly labelsAreIds: boolean
+}
+
+/** Slots of a simple graph; labels are half-edges, or ids[e] for edge e when ids is given. */
+export function incidenceOfSimple(g: SimpleGraph, ids?: Int32Array): Incidence {
+  const n = g.vertexCount
+  const m = g.a.length
+  const adjStart = new Int32Array(n + 1)
+  for (let e = 0; e < m; e++) { adjStart[g.a[e]! + 1]!++; adjStart[g.b[e]! + 1]!++ }
+  for (let v = 0; v < n; v++) adjStart[v + 1]! += adjStart[v]!
+  const slot = new Int32Array(4 * m)
+  const fill = adjStart.slice(0, n)
+  for (let e = 0; e < m; e++) {
+    const x = g.a[e]!, y = g.b[e]!
+    const s = 2 * fill[x]!++, t = 2 * fill[y]!++
+    slot[s] = ids === undefined ? 2 * e : ids[e]!; slot[s + 1] = y
+    slot[t] = ids === undefined ? 2 * e + 1 : ids[e]!; slot[t + 1] = x
+  }
+  return {vertexCount: n, edgeCount: m, adjStart, slot, labelsAreIds: ids !== undefined}
+}
+
+/**
+ * Slots of a digraph's underlying graph, labelled by g's edge ids; null when g has a loop or two
+ * edges between the same vertices (the caller then goes through `simplify`).
+ *
+ * Order: simplify numbers the edges while sweeping the vertices u in order, each u's out-list then
+ * in-list, taking the edges whose other end w is larger. Sweeping the same way and appending each
+ * edge to u's and to w's slots gives every vertex its slots in that numbering's order: u's slots
+ * from smaller vertices were all appended by earlier sweeps, before its own. The sweep reads each
+ * edge's other end at a scattered place, but no read waits on another, so their misses overlap.
+ */
+export function incidenceOfDigraph(g: Digraph): Incidence | null {
+  const n = g.vertexCount
+  const m = g.edgeCount
+  const {outStart, outEdges, inStart, inEdges, head, tail} = g
+  const adjStart = new Int32Array(n + 1)
+  for (let v = 0; v < n; v++) {
+    adjStart[v + 1] = adjStart[v]! + outStart[v + 1]! - outStart[v]! + inStart[v + 1]! - inStart[v]!
+  }
+  const slot = new Int32Array(4 * m)
+  const fill = adjStart.slice(0, n)
+  // Repeated pairs: as in simplify, a vertex of small degree looks through its own short list (in
+  // cache), a larger one marks its neighbours in a stamp array; O(NEAR) per edge end either way.
+  const near = new Int32Array(NEAR)
+  let nearCount = 0
+  let stamp: Int32Array | null = null
+  // Append edge e = {u, w}, w > u, to both slot lists; false if the pair was met before.
+  const add = (u: number, e: number, w: number): boolean => {
+    if (stamp !== null) {
+      if (stamp[w] === u) return false
+      stamp[w] = u
+    } else {
+      for (let j = 0; j < nearCount; j++) if (near[j] === w) return false
+      near[nearCount++] = w
+    }
+    const s = 2 * fill[u]!++, t = 2 * fill[w]!++
+    slot[s] = e; slot[s + 1] = w
+    slot[t] = e; slot[t + 1] = u
+    return true
+  }
+  let stampAll: Int32Array | null = null
+  for (let u = 0; u < n; u++) {
+    const o0 = outStart[u]!, o1 = outStart[u + 1]!, i0 = inStart[u]!, i1 = inStart[u + 1]!
+    nearCount = 0
+    stamp = null
+    if (o1 - o0 + i1 - i0 > NEAR) stamp = stampAll ??= new Int32Array(n).fill(-1)
+    for (let i = o0; i < o1; i++) {
+      const e = outEdges[i]!, w = head[e]!
+      if (w === u) return null // a loop
+      if (w > u && !add(u, e, w)) return null
+    }
+    for (let i = i0; i < i1; i++) {
+      const e = inEdges[i]!, w = tail[e]!
+      if (w > u && !add(u, e, w)) return null
+    }
+  }
+  return {vertexCount: n, edgeCount: m, adjStart, slot, labelsAreIds: true}
+}
+
+const NEAR = 16
