@@ -1,8 +1,8 @@
 /**
- * The budget holds at 10,000 vertices: after parsing, no stage of the check starts once the clock
- * has passed the deadline, whatever that stage is (cycle test, planarity, the upward test's
- * reductions and fast paths, the search), so a short budget answers `undecided` instead of running
- * each linear stage to its end. The clock is injected (as in fuzz-budget.test.ts), so nothing here
+ * The budget holds at 10,000 vertices: the parse looks at the clock every 256 lines and stops once
+ * it has passed the deadline, and after parsing no stage of the check starts past it, whatever that
+ * stage is (cycle test, planarity, the upward test's reductions and fast paths, the search), so a
+ * short budget answers `undecided` instead of running each linear stage to its end. The clock is injected (as in fuzz-budget.test.ts), so nothing here
  * depends on how fast the machine is.
  *
  * A stage that starts late is visible on such a clock only through what it decides: a diagram whose
@@ -11,7 +11,7 @@
  * another, and the check stops within a few clock reads of it.
  */
 import {describe, expect, it} from 'vitest'
-import {checkDiagram, type DiagramCheck} from '../src/index.ts'
+import {checkDiagram, parseDiagram, type DiagramCheck} from '../src/index.ts'
 import {mulberry32} from '../../../test/support/random.ts'
 
 const noLimits = {maxVertices: Infinity, maxEdges: Infinity, maxTextBytes: Infinity, maxLineLength: Infinity, maxLabelLength: Infinity}
@@ -73,10 +73,31 @@ describe('the budget at 10,000 vertices', () => {
     expect(check.status).toBe('nonplanar')
   })
 
-  it('starts no stage after the deadline: past it right after parsing, even planarity does not run', () => {
-    // Read 1 sets the deadline; the next read is the first look after parsing.
+  it('stops the parse itself at the deadline: past it at the parser\'s first look, the rest is not read', () => {
+    // Read 1 sets the deadline; the parser looks every 256 lines, so read 2 is its first look.
     for (const source of [general, nonplanar]) {
       const clock = jumpClock(2, budget)
+      const check: DiagramCheck = checkDiagram(source, {budgetMillis: budget, now: clock.now, limits: noLimits})
+      expect(check.status).toBe('undecided')
+      expect(check.graph).toBeUndefined()
+      expect(check.parsed.outOfTime?.start.line).toBe(256)
+      expect(check.parsed.edges.length).toBe(255)
+      expect(check.diagnostics.map((d) => d.ruleId)).toEqual(['undecided'])
+      expect(clock.late).toBeLessThanOrEqual(1)
+    }
+    // A short diagram is parsed without reading the clock: its answer cannot depend on load.
+    let reads = 0
+    parseDiagram(text(edges.slice(0, 255)), {expired: () => (reads++, true)})
+    expect(reads).toBe(0)
+  })
+
+  it('starts no stage after the deadline: past it right after parsing, even planarity does not run', () => {
+    for (const source of [general, nonplanar]) {
+      // Read 1 sets the deadline, the parser's reads follow; the next one is the first look after parsing.
+      let parseReads = 0
+      parseDiagram(source, {expired: () => (parseReads++, false)})
+      expect(parseReads).toBe(Math.floor(source.split('\n').length / 256))
+      const clock = jumpClock(2 + parseReads, budget)
       const check: DiagramCheck = checkDiagram(source, {budgetMillis: budget, now: clock.now, limits: noLimits})
       expect(check.status).toBe('undecided')
       expect(check.graph?.vertexCount).toBe(check.parsed.vertices.length)

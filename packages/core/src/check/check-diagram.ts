@@ -91,7 +91,11 @@ function checkStages(text: string, settings: Readonly<CheckSettings>, deadline: 
   // Size limits first: the parser only sees bodies of bounded size with bounded lines.
   const textLimits = checkTextLimits(text, limits)
   if (textLimits.length > 0) return {status: 'too-large', diagnostics: textLimits, parsed: {vertices: [], edges: [], diagnostics: []}}
-  const parsed = parseDiagram(text, {maxEdges: limits.maxEdges})
+  // The parse asks the clock too (every 256 lines): at 10^4 vertices it alone can outlast a short budget.
+  const parsed = parseDiagram(text, {maxEdges: limits.maxEdges, expired})
+  if (parsed.outOfTime) {
+    return {status: 'undecided', diagnostics: [...parsed.diagnostics, undecidedDiagnostic(parsed, budgetMillis)], parsed}
+  }
   const overLimits = checkParsedLimits(parsed, limits)
   if (parsed.edgeLimitReached) overLimits.push(tooManyEdges(parsed.edgeLimitReached, limits.maxEdges))
   if (overLimits.length > 0) {

@@ -126,7 +126,7 @@ export function undecidedDiagnostic(parsed: ParsedDiagram, budgetMillis: number)
     severity: 'error',
     ruleId: 'undecided',
     reason: `The check could not decide within its time budget (${budgetMillis} ms) whether this diagram can be drawn with every arrow pointing the same way and no crossings.`,
-    range: parsed.edges[0]?.range ?? parsed.vertices[0]!.range,
+    range: parsed.edges[0]?.range ?? parsed.vertices[0]?.range ?? parsed.outOfTime!,
     note: 'Deciding this is NP-complete for diagrams with several sources and several sinks (Garg & Tamassia 2001), so a large tangled diagram can take long. Raise the budget (`--budget`, plugin option `budget`) or split the diagram into smaller ones.'
   }
 }

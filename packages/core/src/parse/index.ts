@@ -73,6 +73,12 @@ export interface ParsedDiagram {
    */
   edgeLimitReached?: SourceRange
   /**
+   * Set when parsing with `expired` and the budget ran out: where the first unread line starts.
+   * Everything above holds only the lines before it, and the whole-diagram checks (an empty
+   * diagram, edges against tiers) were not made.
+   */
+  outOfTime?: SourceRange
+  /**
    * The tiers, in the order declared: tier 0 is where edges start (the bottom with `flow=up`), each
    * later tier further along the flow. Absent when the diagram declares none.
    */

@@ -46,6 +46,11 @@ export interface ParseSettings {
    * short text could ask for millions of edges. Default: no cap.
    */
   maxEdges?: number
+  /**
+   * The caller's time budget: asked once every 256 lines (coarse, so a short diagram never reads
+   * the clock); when it says yes, parsing stops there and `outOfTime` says where. Default: never.
+   */
+  expired?: () => boolean
 }
 
 export function parseDiagram(text: string, settings: Readonly<ParseSettings> = {}): ParsedDiagram {
@@ -201,7 +206,13 @@ export function parseDiagram(text: string, settings: Readonly<ParseSettings> = {
     }
   }
 
+  let lines = 0
+  let outOfTime: SourceRange | undefined
   for (;;) {
+    if ((++lines & 255) === 0 && settings.expired?.() === true) {
+      outOfTime = scanner.here()
+      break
+    }
     const result = parseLine(scanner)
     if (!result.ok) {
       hadError = true
@@ -211,6 +222,15 @@ export function parseDiagram(text: string, settings: Readonly<ParseSettings> = {
     }
     if (result.statement) apply(result.statement)
     if (result.last) break
+  }
+
+  if (outOfTime) {
+    // the rest of the text is unread, so the checks over the whole diagram below would mislead
+    diagnostics.sort((a, b) => a.range.start.offset - b.range.start.offset)
+    const parsed: ParsedDiagram = {vertices, edges, diagnostics, outOfTime}
+    if (tiers.length > 0) parsed.tiers = tiers
+    if (edgeLimitReached) parsed.edgeLimitReached = edgeLimitReached
+    return parsed
   }
 
   if (vertices.length === 0 && !hadError) {

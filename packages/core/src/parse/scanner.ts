@@ -53,6 +53,8 @@ export interface Scanner {
   next(): Token
   /** Drop the rest of the current line; the next token is the first of the following line. */
   skipLine(): void
+  /** An empty range where the next line starts, once the current one is done (else where the scanner is). */
+  here(): SourceRange
 }
 
 export function createScanner(text: string): Scanner {
@@ -220,7 +222,16 @@ export function createScanner(text: string): Scanner {
     atLineEnd = true
   }
 
-  return {next, skipLine}
+  function here(): SourceRange {
+    if (!atLineEnd) return range(offset, offset)
+    const code = text.charCodeAt(offset)
+    if (code !== carriageReturn && code !== lineFeed) return range(offset, offset)
+    const at = offset + (code === carriageReturn && text.charCodeAt(offset + 1) === lineFeed ? 2 : 1)
+    const start = {line: line + 1, column: 1, offset: at}
+    return {start, end: start}
+  }
+
+  return {next, skipLine, here}
 }
 
 /** 2 for a well-formed surrogate pair at `at`, else 1: ranges cover whole code points. */
