@@ -26,7 +26,7 @@
 import {createDigraph, type Digraph} from '../graph/digraph.ts'
 import {findCycle} from '../acyclic/find-cycle.ts'
 import {blocksOf} from '../decompose/blocks.ts'
-import {DecompositionStopped, triconnectedComponents, type TriconnectedComponents} from '../decompose/triconnected.ts'
+import {DecompositionStopped, triconnectedComponents, type ComponentKind, type TriconnectedComponents} from '../decompose/triconnected.ts'
 import {testPlanarity} from '../planarity/test-planarity.ts'
 import {dartHead, nextDarts, traceFaces, type Faces, type RotationSystem} from '../embedding/rotation-system.ts'
 import {isBimodal} from './bimodal.ts'
@@ -450,6 +450,7 @@ function assemble(
   const seen = new Uint8Array(C)
   seen[rootComp] = 1
   ref[rootComp] = rootEdge
+  const solvedSkeletons = new Map<string, SolvedSkeleton>()
   /** Final rotation per component, as skeleton edge indices per skeleton vertex (global id). */
   const skRot: Array<Map<number, number[]>> = new Array<Map<number, number[]>>(C)
   let rootOuterDart = -1
@@ -460,7 +461,6 @@ function assemble(
     const info = infos[c]!
     const r = ref[c]!
     const base = info.rotation ?? simpleRotation(comp.kind, info, r)
-    const sk = createDigraph(info.size, info.st)
     const leftDart = (i: number) => {
       const sd = info.stand[i]!
       if (sd.kind === 'peak') return 2 * sd.j1
@@ -472,29 +472,17 @@ function assemble(
       return leftDart(i) ^ 1
     }
     const dartOn = (side: Side, i: number) => (side === 'left' ? leftDart(i) : rightDart(i))
-    // outer face beside the reference edge, on the required side if that works without a mirror
+    // outer face beside the reference edge, on the required side if that works without a mirror.
+    // Small S- and P-skeletons repeat (the same sT-skeleton, rotation, reference darts and wanted
+    // side), and so do their tests: those are solved once per block, keyed by all of these inputs.
     const want = required[c]
-    const tries: Side[] = want === 'right' ? ['right', 'left'] : ['left', 'right']
-    const faces0 = traceFaces({graph: sk, rotation: base})
-    let chosen: Side | null = null
-    let res0: ReturnType<typeof testUpwardEmbedded> | null = null
-    for (const side of tries) {
-      const t = testUpwardEmbedded({graph: sk, rotation: base}, {outerFace: faces0.faceOfDart[dartOn(side, r)]!})
-      if (t.ok) {
-        chosen = side
-        res0 = t
-        break
-      }
+    const key = info.rotation === null && info.st.length <= 24 ? skeletonKey(info, base, dartOn('left', r), dartOn('right', r), want) : null
+    let solved = key === null ? undefined : solvedSkeletons.get(key)
+    if (solved === undefined) {
+      solved = outerBeside(createDigraph(info.size, info.st), base, want, (side) => dartOn(side, r), comp.kind)
+      if (key !== null) solvedSkeletons.set(key, solved)
     }
-    if (chosen === null || res0 === null) throw new Error(`internal: no outer face beside the reference edge of an ${comp.kind}-skeleton`)
-    const mirror = want !== null && chosen !== want
-    const rotation = mirror ? base.map((x) => Int32Array.from(x).reverse()) : base
-    const finalSide: Side = mirror ? want! : chosen
-    const emb = {graph: sk, rotation}
-    // unmirrored: the successful try above already is this test (same embedding, same outer face)
-    const faces = mirror ? traceFaces(emb) : faces0
-    const res = mirror ? testUpwardEmbedded(emb, {outerFace: faces.faceOfDart[dartOn(finalSide, r)]!}) : res0
-    if (!res.ok) throw new Error('internal: mirrored skeleton lost its upward embedding')
+    const {rotation, faces, res, side: finalSide} = solved
     if (c === rootComp) rootOuterDart = 2 * comp.edges[r]!.real + (finalSide === 'left' ? 0 : 1)
     // children
     for (const l of linksOf[c]!) {
@@ -567,6 +555,52 @@ function assemble(
     if (d !== -1) largeAt.set(v, d >> 1)
   })
   return {rot, largeAt, source: s}
+}
+
+interface SolvedSkeleton {
+  rotation: Int32Array[]
+  faces: Faces
+  res: Extract<ReturnType<typeof testUpwardEmbedded>, {ok: true}>
+  /** The side of the reference edge the outer face lies on. */
+  side: Side
+}
+
+/**
+ * An upward embedding of a skeleton's sT-skeleton with its outer face beside the reference edge
+ * (darts refDart('left'), refDart('right')): on the wanted side if the rotation allows it, else on
+ * the other side and then mirrored, so that the outer face ends up on the wanted side.
+ */
+function outerBeside(sk: Digraph, base: Int32Array[], want: Side | null, refDart: (side: Side) => number, kind: ComponentKind): SolvedSkeleton {
+  const tries: Side[] = want === 'right' ? ['right', 'left'] : ['left', 'right']
+  const faces0 = traceFaces({graph: sk, rotation: base})
+  let chosen: Side | null = null
+  let res0: ReturnType<typeof testUpwardEmbedded> | null = null
+  for (const side of tries) {
+    const t = testUpwardEmbedded({graph: sk, rotation: base}, {outerFace: faces0.faceOfDart[refDart(side)]!})
+    if (t.ok) {
+      chosen = side
+      res0 = t
+      break
+    }
+  }
+  if (chosen === null || res0 === null) throw new Error(`internal: no outer face beside the reference edge of an ${kind}-skeleton`)
+  const mirror = want !== null && chosen !== want
+  const rotation = mirror ? base.map((x) => Int32Array.from(x).reverse()) : base
+  const side: Side = mirror ? want! : chosen
+  const emb = {graph: sk, rotation}
+  // unmirrored: the successful try above already is this test (same embedding, same outer face)
+  const faces = mirror ? traceFaces(emb) : faces0
+  const res = mirror ? testUpwardEmbedded(emb, {outerFace: faces.faceOfDart[refDart(side)]!}) : res0
+  if (!res.ok) throw new Error('internal: mirrored skeleton lost its upward embedding')
+  return {rotation, faces, res, side}
+}
+
+/** Every input of outerBeside for a small skeleton, spelt out. */
+function skeletonKey(info: SkeletonInfo, base: readonly Int32Array[], left: number, right: number, want: Side | null): string {
+  let key = `${info.size} ${left} ${right} ${want ?? '-'}:`
+  for (const [a, b] of info.st) key += `${a},${b};`
+  for (const seq of base) key += `${seq.join(',')}|`
+  return key
 }
 
 /** Rotation of an S- or P-skeleton's sT-skeleton (local vertex ids, sT edge ids). */
