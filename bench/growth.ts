@@ -146,8 +146,8 @@ if (max >= 10_000) {
 
 /**
  * A general diagram of 10,000 vertices with short budgets: the check answers `undecided` once the
- * deadline passes, at the next stage boundary; the parse is the one stage no budget interrupts, so
- * its time is printed beside (the best of three, parsed alone).
+ * deadline passes, at the next stage boundary or inside the parse (which looks every 256 lines); the
+ * parse's time is printed beside (the best of three, parsed alone).
  */
 function budgetNotes(): void {
   const hard = general(stGrid(10_000, 81), 82)
