@@ -1,5 +1,7 @@
 /**
- * `pnpm bench layout [--quick]`: layout time, area, bends and total edge length of layoutUpward, against
+ * `pnpm bench layout [--quick]`: layout time, area, bends and total edge length of layoutSmallest (the
+ * layout drawDiagram uses without tiers: the smaller of the st-layout and level drawings with fewer rows;
+ * the st-layout alone, layoutUpward, is reported beside it), against
  * @dagrejs/dagre (a general-purpose layered layout: Sugiyama-style ranking, crossing reduction by
  * sweeps, coordinate assignment) on the same graphs with the same box sizes and gaps, in one run.
  *
@@ -18,7 +20,7 @@ import {dagreLayout, type Box} from './support/dagre-layout.ts'
 import {createDigraph, type Digraph} from '../packages/core/src/graph/digraph.ts'
 import {testUpwardPlanarity} from '../packages/core/src/upward/index.ts'
 import {stAugment, type StAugmentation} from '../packages/core/src/augment/index.ts'
-import {layoutStats, layoutUpward, type Layout} from '../packages/core/src/layout/index.ts'
+import {layoutSmallest, layoutStats, layoutUpward, type Layout} from '../packages/core/src/layout/index.ts'
 import {readGraphml} from '../packages/core/test/support/graphml.ts'
 import {randomUpwardPlanar} from '../packages/core/test/support/random-st.ts'
 import {augmentationOfRandomUpward, randomLayoutCase} from '../packages/core/test/support/layout-st-generator.ts'
@@ -60,6 +62,10 @@ interface Row {
   /** Drawing width and height: ours / dagre's. */
   widthRatio: number
   heightRatio: number
+  /** Which drawing layoutSmallest kept, and the areas of the st-layout alone and of the smallest candidate (written order aside). */
+  kind: string
+  stArea: number
+  anyArea: number
 }
 
 const rowsOf = (l: Layout): number => new Set(l.nodes.map((n) => n.y)).size
@@ -67,8 +73,11 @@ const rowsOf = (l: Layout): number => new Set(l.nodes.map((n) => n.y)).size
 function compare(name: string, g: Digraph, st: StAugmentation, prepMs: number, withDagre: boolean): Row {
   const {labels, boxes} = labelsFor(g.vertexCount)
   const repeat = g.vertexCount < 300 ? 5 : 1
-  layoutUpward({graph: g, st, boxes, flow: 'up'}) // warm
-  const [ours, oursMs] = time(() => layoutUpward({graph: g, st, boxes, flow: 'up'}), repeat)
+  const stOnly = layoutUpward({graph: g, st, boxes, flow: 'up'})
+  const any = layoutSmallest({graph: g, st, boxes, flow: 'up'}, {keepWrittenOrder: false}).layout
+  layoutSmallest({graph: g, st, boxes, flow: 'up'}) // warm
+  const [smallest, oursMs] = time(() => layoutSmallest({graph: g, st, boxes, flow: 'up'}), repeat)
+  const ours = smallest.layout
   const [, svgMs] = time(() => renderSvg({layout: ours, graph: g, labels}), repeat)
   let theirs: Layout = {flow: 'up', width: NaN, height: NaN, nodes: [], edges: []}
   let dagreMs = NaN
@@ -76,7 +85,7 @@ function compare(name: string, g: Digraph, st: StAugmentation, prepMs: number, w
   const os = layoutStats(ours)
   if (os.crossings !== 0) throw new Error(`${name}: our layout has ${os.crossings} crossings`)
   const ts = withDagre ? layoutStats(theirs) : {area: NaN, aspectRatio: NaN, bends: NaN, totalEdgeLength: NaN, crossings: NaN}
-  return {name, n: g.vertexCount, m: g.edgeCount, prepMs, oursMs, svgMs, dagreMs, ours: os, theirs: ts, rows: [rowsOf(ours), withDagre ? rowsOf(theirs) : NaN], widthRatio: ours.width / theirs.width, heightRatio: ours.height / theirs.height}
+  return {name, n: g.vertexCount, m: g.edgeCount, prepMs, oursMs, svgMs, dagreMs, ours: os, theirs: ts, rows: [rowsOf(ours), withDagre ? rowsOf(theirs) : NaN], widthRatio: ours.width / theirs.width, heightRatio: ours.height / theirs.height, kind: smallest.kind + (smallest.balanced ? ' balanced' : ''), stArea: stOnly.width * stOnly.height, anyArea: any.width * any.height}
 }
 
 const fmt = (x: number, d = 1): string => (Number.isFinite(x) ? x.toFixed(d) : '–')
@@ -108,6 +117,14 @@ console.log(`  layout time total: ours ${fmt(sum(north.map((r) => r.oursMs)))} m
 console.log(`  crossings: ours ${sum(north.map((r) => r.ours.crossings))}, dagre ${sum(north.map((r) => r.theirs.crossings))} in ${north.filter((r) => r.theirs.crossings > 0).length} graphs`)
 const areaRatios = north.map((r) => r.ours.area / r.theirs.area).filter(Number.isFinite)
 console.log(`  area ours/dagre: total ${fmt(ratio(north, (r) => r.ours.area, (r) => r.theirs.area), 3)}, median per graph ${fmt(median(areaRatios), 3)}, graphs where ours is larger ${areaRatios.filter((x) => x > 1).length}/${areaRatios.length}`)
+const stRatios = north.map((r) => r.stArea / r.theirs.area).filter(Number.isFinite)
+console.log(`  st-layout alone (layoutUpward): area ours/dagre total ${fmt(ratio(north, (r) => r.stArea, (r) => r.theirs.area), 3)}, median per graph ${fmt(median(stRatios), 3)}, larger ${stRatios.filter((x) => x > 1).length}/${stRatios.length}`)
+const anyRatios = north.map((r) => r.anyArea / r.theirs.area).filter(Number.isFinite)
+console.log(`  smallest candidate, written order aside (keepWrittenOrder: false): area ours/dagre total ${fmt(ratio(north, (r) => r.anyArea, (r) => r.theirs.area), 3)}, median per graph ${fmt(median(anyRatios), 3)}, larger ${anyRatios.filter((x) => x > 1).length}/${anyRatios.length}`)
+const kinds = new Map<string, number>()
+for (const r of north) kinds.set(r.kind, (kinds.get(r.kind) ?? 0) + 1)
+console.log(`  drawing kept: ${[...kinds].sort((a, b) => b[1] - a[1] || (a[0] < b[0] ? -1 : 1)).map(([k, c]) => `${k} ${c}`).join(', ')}`)
+console.log(`  larger than dagre's: ${north.filter((r) => r.ours.area > r.theirs.area).map((r) => `${r.name} ${fmt(r.ours.area / r.theirs.area, 3)}`).join(', ')}`)
 console.log(`  median per graph: width ours/dagre ${fmt(median(north.map((r) => r.widthRatio).filter(Number.isFinite)), 3)}, height ours/dagre ${fmt(median(north.map((r) => r.heightRatio).filter(Number.isFinite)), 3)}`)
 console.log(`  layers (distinct rows of boxes) ours ${sum(north.map((r) => r.rows[0]))}, dagre ${sum(north.map((r) => r.rows[1]))}`)
 console.log(`  bends ours ${sum(north.map((r) => r.ours.bends))}, dagre ${sum(north.map((r) => r.theirs.bends))}; total edge length ours/dagre ${fmt(ratio(north, (r) => r.ours.totalEdgeLength, (r) => r.theirs.totalEdgeLength), 3)}`)
@@ -116,7 +133,7 @@ console.log(`  bends ours ${sum(north.map((r) => r.ours.bends))}, dagre ${sum(no
 // beyond a few thousand vertices, so the two largest sizes come from the layout tests' generator
 // (randomLayoutCase: a spanning subgraph of a random planar st-graph, which is its augmentation).
 console.log('\nGenerated (one graph per size; source: R = randomUpwardPlanar, exact test + stAugment below 1,000 vertices and its own st-graph from 1,000; L = randomLayoutCase with its own st-graph)')
-console.log('n | m | source | test+augment ms | ours ms | SVG ms | dagre ms | time ratio | area ratio | width ratio | height ratio | ours bends | dagre bends | length ratio | dagre crossings | layers ours / dagre')
+console.log('n | m | source | test+augment ms | ours ms | kept | SVG ms | dagre ms | time ratio | area ratio | width ratio | height ratio | ours bends | dagre bends | length ratio | dagre crossings | layers ours / dagre')
 const sizes = quick ? [100, 300, 1000] : [100, 300, 1000, 3000, 10000]
 let target: {g: Digraph; st: StAugmentation} | undefined
 for (const n of sizes) {
@@ -143,7 +160,7 @@ for (const n of sizes) {
   // dagre takes about 15 to 45 s at 1,000 vertices on this machine and grows faster than linearly: run up to 1,000.
   const row = compare(`random ${n}`, g, st, prepMs, n <= 1000)
   console.log(
-    [row.n, row.m, source, fmt(row.prepMs), fmt(row.oursMs), fmt(row.svgMs), fmt(row.dagreMs), fmt(row.oursMs / row.dagreMs, 3), fmt(row.ours.area / row.theirs.area, 3),
+    [row.n, row.m, source, fmt(row.prepMs), fmt(row.oursMs), row.kind, fmt(row.svgMs), fmt(row.dagreMs), fmt(row.oursMs / row.dagreMs, 3), fmt(row.ours.area / row.theirs.area, 3),
       fmt(row.widthRatio, 3), fmt(row.heightRatio, 3), row.ours.bends, row.theirs.bends, fmt(row.ours.totalEdgeLength / row.theirs.totalEdgeLength, 3),
       row.theirs.crossings, `${row.rows[0]} / ${row.rows[1]}`].join(' | ')
   )
@@ -157,7 +174,7 @@ if (target) {
   const {labels, boxes} = labelsFor(g.vertexCount)
   const runs: Array<[number, number]> = []
   for (let i = 0; i < 5; i++) {
-    const [layout, layoutMs] = time(() => layoutUpward({graph: g, st, boxes, flow: 'up'}))
+    const [{layout}, layoutMs] = time(() => layoutSmallest({graph: g, st, boxes, flow: 'up'}))
     const [, svgMs] = time(() => renderSvg({layout, graph: g, labels}))
     runs.push([layoutMs, svgMs])
   }

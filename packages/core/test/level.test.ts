@@ -11,6 +11,7 @@
  */
 import {describe, expect, it} from 'vitest'
 import {assignLevels, checkLevelDrawing, createDigraph, testLevelPlanarity, type Digraph, type LevelItem} from '@upright/core'
+import {ordersByRank} from '../src/layout/level-candidates.ts'
 
 function prng(seed: number): () => number {
   let s = seed >>> 0
@@ -142,6 +143,37 @@ describe('testLevelPlanarity against a brute-force oracle', () => {
     // Both answers are well represented.
     expect(planar).toBeGreaterThan(300)
     expect(cases - planar).toBeGreaterThan(300)
+  })
+
+  it('with majority flips and edge places: the same answers on 1,200 random level graphs, witnesses re-checked; orders by rank are used only when crossing-free', () => {
+    const random = prng(20261202)
+    let cases = 0
+    let planar = 0
+    let byRank = 0
+    while (cases < 1200) {
+      const {edges, level} = randomLevelGraph(random)
+      if (orderSpace(edges, level) > 40_000) continue
+      cases++
+      const graph = createDigraph(level.length, edges)
+      const rank = level.map(() => Math.floor(random() * 8))
+      const edgeRank = edges.map(() => Math.floor(random() * 8))
+      const expected = oracle(edges, level)
+      const result = testLevelPlanarity(graph, level, {rank, edgeRank, majority: true})
+      expect(result.status, JSON.stringify({edges, level})).toBe(expected ? 'planar' : 'not-planar')
+      if (result.status === 'planar') {
+        planar++
+        expect(witnessIsCrossingFree(edges, level, result.orders)).toBe(true)
+        expect(checkLevelDrawing(graph, level, result.orders)).toEqual({ok: true})
+      }
+      const sorted = ordersByRank(graph, Int32Array.from(level), rank, edgeRank)
+      if (sorted) {
+        byRank++
+        expect(expected).toBe(true)
+        expect(checkLevelDrawing(graph, level, sorted)).toEqual({ok: true})
+      }
+    }
+    expect(planar).toBeGreaterThan(200)
+    expect(byRank).toBeGreaterThan(50)
   })
 })
 

@@ -1,7 +1,8 @@
 /**
  * From a passing check to a drawing: label boxes from font metrics, then one of two layouts, both
  * crossing-free by construction:
- * - without tiers, the st-augmentation of the upward embedding and the upward layout;
+ * - without tiers, the smaller in area of the upward layout of the st-augmentation and level drawings
+ *   with fewer rows (layout/smallest-layout.ts);
  * - with tiers, the level drawing of the levels and per-level orders the exact level-planarity test
  *   found (layout/tier-layout.ts), with a band and caption per tier.
  * Edge labels ride along in both: the layout runs on the graph with every labelled edge split at a
@@ -11,7 +12,7 @@
 import {stAugment, type StAugmentation} from '../augment/index.ts'
 import type {DiagramCheck} from '../check/index.ts'
 import type {Digraph} from '../graph/digraph.ts'
-import {joinEdgeLabels, layoutTiers, layoutUpward, type EdgeLabelBox, type Layout, type Spacing, type TierBand} from '../layout/index.ts'
+import {joinEdgeLabels, layoutSmallest, layoutTiers, type EdgeLabelBox, type Layout, type Spacing, type TierBand} from '../layout/index.ts'
 import {labelBox, type LabelBoxOptions} from '../measure/index.ts'
 import type {Flow, Tone} from '../parse/index.ts'
 
@@ -59,7 +60,8 @@ export interface Drawing {
   tiers: DrawnTier[]
   /**
    * The planar st-digraph of the upward embedding (its first m edges are the graph's; the extra ones
-   * are not drawn). The layout is built from it when the diagram has neither tiers nor edge labels.
+   * are not drawn). The layout starts from it when the diagram has neither tiers nor edge labels (and
+   * may then keep a level drawing with fewer rows instead).
    */
   st: StAugmentation
 }
@@ -106,7 +108,7 @@ export function drawDiagram(check: DiagramCheck, settings: Readonly<DrawSettings
     })
   } else {
     const workSt = split?.upward ? stAugment(split.upward) : st
-    layout = layoutUpward({graph: work, st: workSt, boxes: workBoxes, flow: settings.flow, spacing: settings.spacing})
+    layout = layoutSmallest({graph: work, st: workSt, boxes: workBoxes, flow: settings.flow, spacing: settings.spacing}).layout
   }
 
   let edgeLabels: DrawnEdgeLabel[] = []

@@ -40,6 +40,13 @@ export type LevelPlanarity =
 export interface LevelPlanarityOptions {
   /** Per vertex: its place in the written order (smaller = further left); default the vertex id. */
   rank?: ArrayLike<number>
+  /** Per edge: the preferred place of the points where it passes a level, on rank's scale; default its tail's rank. */
+  edgeRank?: ArrayLike<number>
+  /**
+   * Each component of equations first tries the value that puts most of its pairs in rank order
+   * (true), or the one that puts its first pair in rank order (false, the default).
+   */
+  majority?: boolean
   /** Propagation steps the witness search may take before answering `undecided`. */
   maxSteps?: number
   /**
@@ -91,8 +98,8 @@ export function testLevelPlanarity(graph: Digraph, level: ArrayLike<number>, opt
       const dummy = nodeLevel.length
       nodeLevel.push(l)
       nodeItem.push({kind: 'edge', edge: e})
-      // A dummy sits, by preference, between its ends' ranks; the tail's rank is good enough.
-      nodeRank.push(nodeRank[u]!)
+      // A dummy sits, by preference, between its ends' ranks: at its edge's place if given, else the tail's.
+      nodeRank.push(options.edgeRank ? options.edgeRank[e]! : nodeRank[u]!)
       segTail.push(previous)
       segHead.push(dummy)
       segEdge.push(e)
@@ -342,8 +349,17 @@ export function testLevelPlanarity(graph: Digraph, level: ArrayLike<number>, opt
     }
   }
 
-  // Iterative depth-first search over the components in order; the preferred flip (0: the root pair
-  // in rank order) first.
+  // Iterative depth-first search over the components in order; the preferred flip first (0: the root
+  // pair in rank order; with `majority`, the flip that puts more of the component's pairs in rank
+  // order, 0 on a tie). A variable's value is colour XOR flip, and value 0 is rank order.
+  const prefer = new Uint8Array(componentCount)
+  if (options.majority) {
+    for (let c = 0; c < componentCount; c++) {
+      let ones = 0
+      for (let p = memberStart[c]!; p < memberStart[c + 1]!; p++) ones += colour[memberList[p]!]!
+      if (2 * ones > memberStart[c + 1]! - memberStart[c]!) prefer[c] = 1
+    }
+  }
   const choice: number[] = []
   const marks: number[] = []
   let next = 0
@@ -352,7 +368,7 @@ export function testLevelPlanarity(graph: Digraph, level: ArrayLike<number>, opt
     if (next === componentCount) break
     marks.push(trail.length)
     choice.push(next)
-    if (assign(next, 0)) continue
+    if (assign(next, prefer[next]!)) continue
     if (steps > maxSteps) return {status: 'undecided'}
     // Backtrack to the latest decision that still has its second value to try.
     let resolved = false
@@ -364,7 +380,7 @@ export function testLevelPlanarity(graph: Digraph, level: ArrayLike<number>, opt
       if (triedSecond) continue
       marks.push(trail.length)
       choice.push(-1 - c)
-      if (assign(c, 1)) {
+      if (assign(c, 1 - prefer[c]!)) {
         resolved = true
         break
       }

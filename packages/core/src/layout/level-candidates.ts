@@ -1,0 +1,368 @@
+/**
+ * Level assignments with fewer rows than the st-graph's layering, each proved drawable by the exact
+ * level-planarity test (level/level-planarity.ts, Randerath et al. 2001), which also returns the
+ * per-level orders that level-layout.ts draws.
+ *
+ * Why: the upward layout (layout-upward.ts) layers the st-augmentation H, and the edges that saturate
+ * faces lengthen H's longest path, so it often uses more rows than G's own longest path, the least
+ * any layered drawing can have. A level-planar assignment closer to that bound gives an upward,
+ * crossing-free drawing with fewer rows (usually a smaller area; the caller compares areas).
+ *
+ * Candidates, in this order (duplicates dropped):
+ * 1. longest path from the sources (each vertex as low as its predecessors allow): the minimum
+ *    number of rows of any layered drawing (common practice; e.g. Di Battista, Eades, Tamassia,
+ *    Tollis, "Graph Drawing", 1999, sec. 9.1);
+ * 2. longest path to the sinks (each vertex as high as its successors allow), the same height;
+ * 3. the same height with the total edge span lowered by single-vertex moves (layering.ts, after the
+ *    network-simplex layering of Gansner, Koutsofios, North, Vo, IEEE TSE 19(3), 1993);
+ * 4. relaxed augmentation: longest path of G plus a subset S of H's added edges. With every added
+ *    edge kept this is H's own layering, level planar by H's embedding; added edges on a longest path
+ *    are then dropped while the test still answers planar, each drop lowering the height or keeping
+ *    it. A greedy search (ours), capped by `maxTests`.
+ * Each of these that passes the test is also tried with its rows evened out (balance-rows.ts: same
+ * height, single vertices moved to narrower rows), as a further candidate when that passes too.
+ * A "no" from the test only rules out that candidate; every level test is bounded by `maxWork`
+ * (pairs set up) and `maxSteps` (witness search), all of them together by `workBudget` (pairs set
+ * up), deterministic counts, and `undecided` counts as no.
+ *
+ * Time: each test is quadratic in the level widths (see level-planarity.ts), bounded as above; the
+ * layerings are linear, O(n + m) per relaxation step.
+ */
+import {createDigraph, type Digraph} from '../graph/digraph.ts'
+import {testLevelPlanarity, type LevelItem, type LevelPlanarityOptions} from '../level/level-planarity.ts'
+import type {StAugmentation} from '../augment/index.ts'
+import {balanceRows} from './balance-rows.ts'
+import {layerByWeightedSpan, topologicalOrder} from './layering.ts'
+
+export type LevelCandidateKind = 'longest-path' | 'longest-path-down' | 'short-edges' | 'relaxed-augmentation'
+
+export interface LevelCandidate {
+  kind: LevelCandidateKind
+  /** Level of each vertex of G, 0-based, every level holding a vertex; every edge goes up. */
+  level: Int32Array
+  /** Per level, left to right (the level-planarity witness). */
+  orders: LevelItem[][]
+  /** Whether the rows of the `kind` assignment were evened out (balance-rows.ts). */
+  balanced: boolean
+  /** Index of the order preference the orders follow. */
+  preference: number
+}
+
+/**
+ * A preferred left-to-right order: per vertex a place (`rank`, smaller = further left) and per edge a
+ * place for its bends on the same scale (`edgeRank`). With both given, the levels sorted by them are
+ * used as they are when they draw no crossing; otherwise they break ties in the level test.
+ */
+export interface OrderPreference {
+  rank: ArrayLike<number>
+  edgeRank?: ArrayLike<number> | undefined
+}
+
+export interface LevelCandidateOptions {
+  /**
+   * Orders to follow, the first one when deciding; every assignment that passes gets a drawing per
+   * preference whose orders differ. Default: one, the vertex ids without edge places.
+   */
+  preferences?: ReadonlyArray<OrderPreference> | undefined
+  /** Pairs set up per level test (P + Q in level-planarity.ts); past it the candidate is skipped. Default 250,000. */
+  maxWork?: number | undefined
+  /**
+   * Pairs set up over all level tests together; a test that would go past what is left is not run
+   * (its candidate is skipped). Default 500,000.
+   */
+  workBudget?: number | undefined
+  /** Propagation steps per level test's witness search. Default 250,000. */
+  maxSteps?: number | undefined
+  /** Level tests of the relaxed augmentation (4. above). Default 24. */
+  maxTests?: number | undefined
+  /**
+   * Row balancing (balance-rows.ts): each box's extent across the flow and the gaps between boxes and
+   * beside bends. Without it, rows are not balanced.
+   */
+  rows?: {across: ArrayLike<number>; nodeGap: number; edgeGap: number} | undefined
+}
+
+export function levelCandidates(g: Digraph, st: StAugmentation, options: Readonly<LevelCandidateOptions> = {}): LevelCandidate[] {
+  const n = g.vertexCount
+  if (n === 0 || g.edgeCount === 0) return []
+  const preferences = options.preferences?.length ? options.preferences : [{rank: Int32Array.from({length: n}, (_, v) => v)}]
+  const limits = (p: OrderPreference): LevelPlanarityOptions => {
+    const l: LevelPlanarityOptions = {maxWork: options.maxWork ?? 250_000, maxSteps: options.maxSteps ?? 250_000, majority: true, rank: p.rank}
+    if (p.edgeRank) l.edgeRank = p.edgeRank
+    return l
+  }
+  let budget = options.workBudget ?? 500_000
+  /** Orders for `level` following preference p: its own orders when they draw cleanly, else the test's. */
+  const ordersFor = (level: Int32Array, p: OrderPreference): LevelItem[][] | undefined => {
+    const own = p.edgeRank ? ordersByRank(g, level, p.rank, p.edgeRank) : undefined
+    if (own) return own
+    const work = levelTestWork(g, level)
+    if (work > budget) return undefined
+    budget -= work
+    const r = testLevelPlanarity(g, level, limits(p))
+    return r.status === 'planar' ? r.orders : undefined
+  }
+  const test = (level: Int32Array): LevelItem[][] | undefined => ordersFor(level, preferences[0]!)
+  const found: Array<{kind: LevelCandidateKind; level: Int32Array; orders: LevelItem[][]; balanced: boolean}> = []
+  const seen: Int32Array[] = []
+  const add = (kind: LevelCandidateKind, level: Int32Array, balanced: boolean): void => {
+    if (seen.some((s) => sameLevels(s, level))) return
+    seen.push(level)
+    const orders = test(level)
+    if (orders) found.push({kind, level, orders, balanced})
+  }
+  add('longest-path', longestPathUp(g), false)
+  add('longest-path-down', longestPathDown(g), false)
+  add('short-edges', compress(layerByWeightedSpan(g, () => 1).rank, n), false)
+  const relaxed = relaxAugmentation(g, st, options.maxTests ?? 24, test)
+  if (relaxed && !seen.some((s) => sameLevels(s, relaxed.level))) {
+    seen.push(relaxed.level)
+    found.push({kind: 'relaxed-augmentation', ...relaxed, balanced: false})
+  }
+  const rows = options.rows
+  if (rows) {
+    for (const c of found.slice()) {
+      const level = balanceRows(g, c.level, rows.across, rows.nodeGap, rows.edgeGap)
+      if (level) add(c.kind, level, true)
+    }
+  }
+  // The same assignments with the orders of the other preferences, where they differ.
+  const out: LevelCandidate[] = []
+  for (const c of found) {
+    out.push({...c, preference: 0})
+    const keys = [ordersKey(c.orders)]
+    for (let p = 1; p < preferences.length; p++) {
+      const orders = ordersFor(c.level, preferences[p]!)
+      if (!orders || keys.includes(ordersKey(orders))) continue
+      keys.push(ordersKey(orders))
+      out.push({kind: c.kind, level: c.level, orders, balanced: c.balanced, preference: p})
+    }
+  }
+  return out
+}
+
+function ordersKey(orders: LevelItem[][]): string {
+  return orders.map((level) => level.map((item) => (item.kind === 'vertex' ? `v${item.vertex}` : `e${item.edge}`)).join(' ')).join('|')
+}
+
+/**
+ * Each level sorted by rank (vertices) and edgeRank (the points where edges pass), ties by vertex
+ * before edge and then id, if that draws no two segments across each other; else undefined. Between
+ * two consecutive levels, segments a→c and b→d with a ≠ b and c ≠ d cross exactly when a, b and c, d
+ * are in opposite orders, so sorted by their lower ends (then upper ends) the upper ends must never
+ * go back. O(N log N) for N points and segments.
+ */
+export function ordersByRank(g: Digraph, level: Int32Array, rank: ArrayLike<number>, edgeRank: ArrayLike<number>): LevelItem[][] | undefined {
+  const n = g.vertexCount
+  let height = 0
+  for (let v = 0; v < n; v++) height = Math.max(height, level[v]! + 1)
+  // Points: vertices 0..n-1, then one per edge per level it passes.
+  const pointLevel: number[] = []
+  const pointKey: number[] = []
+  const items: LevelItem[] = []
+  for (let v = 0; v < n; v++) {
+    pointLevel.push(level[v]!)
+    pointKey.push(rank[v]!)
+    items.push({kind: 'vertex', vertex: v})
+  }
+  const segLow: number[] = []
+  const segHigh: number[] = []
+  for (let e = 0; e < g.edgeCount; e++) {
+    let prev = g.tail[e]!
+    for (let l = level[g.tail[e]!]! + 1; l < level[g.head[e]!]!; l++) {
+      const p = pointLevel.length
+      pointLevel.push(l)
+      pointKey.push(edgeRank[e]!)
+      items.push({kind: 'edge', edge: e})
+      segLow.push(prev)
+      segHigh.push(p)
+      prev = p
+    }
+    segLow.push(prev)
+    segHigh.push(g.head[e]!)
+  }
+  const byLevel: number[][] = Array.from({length: height}, () => [])
+  for (let p = 0; p < pointLevel.length; p++) byLevel[pointLevel[p]!]!.push(p)
+  const position = new Int32Array(pointLevel.length)
+  for (const points of byLevel) {
+    points.sort((a, b) => pointKey[a]! - pointKey[b]! || Number(a >= n) - Number(b >= n) || a - b)
+    points.forEach((p, i) => (position[p] = i))
+  }
+  const bands: number[][] = Array.from({length: height}, () => [])
+  for (let s = 0; s < segLow.length; s++) bands[pointLevel[segLow[s]!]!]!.push(s)
+  for (const band of bands) {
+    band.sort((a, b) => position[segLow[a]!]! - position[segLow[b]!]! || position[segHigh[a]!]! - position[segHigh[b]!]!)
+    for (let i = 1; i < band.length; i++) if (position[segHigh[band[i]!]!]! < position[segHigh[band[i - 1]!]!]!) return undefined
+  }
+  return byLevel.map((points) => points.map((p) => items[p]!))
+}
+
+/**
+ * What the level test sets up for these levels (its P + Q, level-planarity.ts): pairs of points on
+ * one level and pairs of segments between two consecutive levels, every edge passing a level being a
+ * point there. O(n + m + L) for L levels.
+ */
+export function levelTestWork(g: Digraph, level: Int32Array): number {
+  let height = 0
+  for (let v = 0; v < g.vertexCount; v++) height = Math.max(height, level[v]! + 1)
+  const points = new Float64Array(height)
+  const segments = new Float64Array(height)
+  for (let v = 0; v < g.vertexCount; v++) points[level[v]!]!++
+  // Difference arrays: an edge from level a to b adds a point on a+1..b-1 and a segment on a..b-1.
+  const pointStep = new Float64Array(height + 1)
+  const segStep = new Float64Array(height + 1)
+  for (let e = 0; e < g.edgeCount; e++) {
+    const a = level[g.tail[e]!]!
+    const b = level[g.head[e]!]!
+    pointStep[a + 1]!++
+    pointStep[b]!--
+    segStep[a]!++
+    segStep[b]!--
+  }
+  let work = 0
+  let p = 0
+  let q = 0
+  for (let l = 0; l < height; l++) {
+    p += pointStep[l]!
+    q += segStep[l]!
+    const k = points[l]! + p
+    work += (k * (k - 1)) / 2 + (q * (q - 1)) / 2
+  }
+  return work
+}
+
+/** Longest path from the sources: level(v) = length of the longest path ending at v. */
+export function longestPathUp(g: Digraph): Int32Array {
+  const level = new Int32Array(g.vertexCount)
+  for (const v of topologicalOrder(g)) {
+    for (let i = g.inStart[v]!; i < g.inStart[v + 1]!; i++) {
+      const l = level[g.tail[g.inEdges[i]!]!]! + 1
+      if (l > level[v]!) level[v] = l
+    }
+  }
+  return level
+}
+
+/** Longest path to the sinks, turned over: the top level minus the longest path starting at v. */
+export function longestPathDown(g: Digraph): Int32Array {
+  const order = topologicalOrder(g)
+  const depth = new Int32Array(g.vertexCount)
+  let top = 0
+  for (let k = order.length - 1; k >= 0; k--) {
+    const v = order[k]!
+    for (let i = g.outStart[v]!; i < g.outStart[v + 1]!; i++) {
+      const d = depth[g.head[g.outEdges[i]!]!]! + 1
+      if (d > depth[v]!) depth[v] = d
+    }
+    if (depth[v]! > top) top = depth[v]!
+  }
+  return depth.map((d) => top - d)
+}
+
+/** The first n ranks renumbered 0, 1, … keeping their order (ranks no vertex of G uses disappear). */
+function compress(rank: ArrayLike<number>, n: number): Int32Array {
+  const used = Array.from(new Set(Array.from({length: n}, (_, v) => rank[v]!))).sort((a, b) => a - b)
+  const index = new Map(used.map((r, i) => [r, i]))
+  return Int32Array.from({length: n}, (_, v) => index.get(rank[v]!)!)
+}
+
+function sameLevels(a: Int32Array, b: Int32Array): boolean {
+  if (a.length !== b.length) return false
+  for (let i = 0; i < a.length; i++) if (a[i] !== b[i]) return false
+  return true
+}
+
+/** Ranks of H's vertices by longest path over G's edges and the kept added edges. */
+interface Relaxation {
+  rank: Int32Array
+  /** Longest path starting at each vertex, over the same edges. */
+  depth: Int32Array
+  /** G's levels: the ranks of G's vertices, compressed. */
+  level: Int32Array
+}
+
+function longest(r: Relaxation): number {
+  let top = 0
+  for (let v = 0; v < r.rank.length; v++) top = Math.max(top, r.rank[v]!)
+  return top
+}
+
+function relaxation(g: Digraph, h: Digraph, keep: Uint8Array): Relaxation {
+  const m = g.edgeCount
+  const edges: Array<[number, number]> = []
+  for (let e = 0; e < h.edgeCount; e++) if (e < m || keep[e - m]) edges.push([h.tail[e]!, h.head[e]!])
+  const k = createDigraph(h.vertexCount, edges)
+  const rank = longestPathUp(k)
+  const order = topologicalOrder(k)
+  const depth = new Int32Array(k.vertexCount)
+  for (let i = order.length - 1; i >= 0; i--) {
+    const v = order[i]!
+    for (let p = k.outStart[v]!; p < k.outStart[v + 1]!; p++) {
+      const d = depth[k.head[k.outEdges[p]!]!]! + 1
+      if (d > depth[v]!) depth[v] = d
+    }
+  }
+  return {rank, depth, level: compress(rank, g.vertexCount)}
+}
+
+/** 4. above: drop added edges on longest paths while the level test says planar. */
+function relaxAugmentation(
+  g: Digraph,
+  st: StAugmentation,
+  maxTests: number,
+  test: (level: Int32Array) => LevelItem[][] | undefined
+): {level: Int32Array; orders: LevelItem[][]} | undefined {
+  const h = st.graph
+  const m = g.edgeCount
+  const added = h.edgeCount - m
+  if (added === 0 || maxTests < 1) return undefined
+  const keep = new Uint8Array(added).fill(1)
+  let current = relaxation(g, h, keep)
+  let orders = test(current.level)
+  let tests = 1
+  if (!orders) return undefined
+  let best = {level: current.level, orders}
+  while (tests < maxTests) {
+    // Kept added edges that are tight and lie on a longest path of the current graph.
+    const top = longest(current)
+    const critical: number[] = []
+    for (let e = m; e < h.edgeCount; e++) {
+      const a = h.tail[e]!
+      const b = h.head[e]!
+      if (keep[e - m] && current.rank[a]! + 1 === current.rank[b]! && current.rank[b]! + current.depth[b]! === top) critical.push(e)
+    }
+    if (critical.length === 0) break
+    const all = keep.slice()
+    for (const e of critical) all[e - m] = 0
+    const lower = relaxation(g, h, all)
+    // A longest path of G's own edges: no drop can lower the height. (H's longest path counts its
+    // added source and sink too, which G's levels do not, so compare H's.)
+    if (longest(lower) >= top) break
+    tests++
+    const allOrders = test(lower.level)
+    if (allOrders) {
+      keep.set(all)
+      current = lower
+      best = {level: lower.level, orders: allOrders}
+      continue
+    }
+    // One at a time, in id order: the first drop that stays planar is kept.
+    let moved = false
+    for (const e of critical) {
+      if (tests >= maxTests) break
+      const one = keep.slice()
+      one[e - m] = 0
+      const next = relaxation(g, h, one)
+      tests++
+      const nextOrders = test(next.level)
+      if (!nextOrders) continue
+      keep.set(one)
+      current = next
+      best = {level: next.level, orders: nextOrders}
+      moved = true
+      break
+    }
+    if (!moved) break
+  }
+  return best
+}

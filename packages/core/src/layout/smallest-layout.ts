@@ -1,0 +1,110 @@
+/**
+ * The drawing a diagram without tiers gets: the smallest in area among the st-layout
+ * (layout-upward.ts, rows from the st-augmentation H) and level drawings (level-layout.ts) of the
+ * level-planar assignments with fewer rows that level-candidates.ts finds. All are upward and
+ * crossing-free by construction; the choice only compares width × height, so it is deterministic
+ * (no clock). Ties keep the earlier candidate, the st-layout first.
+ *
+ * The level candidates are tried only up to `maxEdges` edges (the level test is quadratic in the
+ * level widths; past that size the st-layout alone is used, which is linear) and each test is bounded
+ * by deterministic work counts (level-candidates.ts).
+ *
+ * Orders on the levels: each level assignment is drawn with two preferred orders, where they differ:
+ * the st-layout's (each vertex's and edge's abscissa in H's visibility representation, dual-order.ts)
+ * and the written order (edge ids). Each is used as it is when it draws no crossing, and otherwise
+ * breaks ties in the level test. A level drawing that shows fewer vertices' out-edges in written
+ * order than the st-layout is not kept (unless `keepWrittenOrder` is false), so the choice never
+ * undoes the written-order preference of the upward test.
+ */
+import {boxHalves, resolveSpacing} from './banded-drawing.ts'
+import {dualOrder} from './dual-order.ts'
+import {layoutLevels} from './level-layout.ts'
+import {levelCandidates, type LevelCandidateKind, type OrderPreference} from './level-candidates.ts'
+import {layoutUpward} from './layout-upward.ts'
+import type {Digraph} from '../graph/digraph.ts'
+import type {Layout, LayoutInput} from './types.ts'
+
+export interface SmallestLayoutOptions {
+  /** Try level candidates only for graphs with at most this many edges. Default 600. */
+  maxEdges?: number | undefined
+  /**
+   * Keep a level drawing only if at least as many vertices show their out-edges left to right in
+   * written order (edge id order) as in the st-layout, whose embedding was chosen with that
+   * preference (check/written-order.ts). Default true; false compares areas alone.
+   */
+  keepWrittenOrder?: boolean | undefined
+}
+
+export interface SmallestLayout {
+  layout: Layout
+  /** Which drawing was kept. */
+  kind: 'st' | LevelCandidateKind
+  /** For a level drawing: whether its rows were evened out. */
+  balanced: boolean
+}
+
+export function layoutSmallest(input: LayoutInput, options: Readonly<SmallestLayoutOptions> = {}): SmallestLayout {
+  const all = layoutCandidates(input, options)
+  const keep = options.keepWrittenOrder ?? true
+  const floor = keep ? writtenOrderKept(input.graph, all[0]!.layout) : 0
+  let best: SmallestLayout | undefined
+  for (const c of all) {
+    if (keep && c.kind !== 'st' && writtenOrderKept(input.graph, c.layout) < floor) continue
+    if (!best || c.layout.width * c.layout.height < best.layout.width * best.layout.height) best = c
+  }
+  return best!
+}
+
+/** Every drawing layoutSmallest compares, the st-layout first (for tests and benches). */
+export function layoutCandidates(input: LayoutInput, options: Readonly<SmallestLayoutOptions> = {}): SmallestLayout[] {
+  const out: SmallestLayout[] = [{layout: layoutUpward(input), kind: 'st', balanced: false}]
+  const g = input.graph
+  if (g.edgeCount === 0 || g.edgeCount > (options.maxEdges ?? 600)) return out
+  const {vertexKey, edgeKey} = dualOrder(input.st.embedding, input.st.faces, input.st.outerFace)
+  const spacing = resolveSpacing(input.spacing)
+  const {halfU} = boxHalves(input.boxes, g.vertexCount, input.flow)
+  const rows = {across: halfU.map((h) => 2 * h), nodeGap: spacing.node, edgeGap: spacing.edge}
+  const preferences = [{rank: vertexKey.subarray(0, g.vertexCount), edgeRank: edgeKey.subarray(0, g.edgeCount)}, writtenPlaces(g)]
+  for (const c of levelCandidates(g, input.st, {preferences, rows})) {
+    const {layout} = layoutLevels({graph: g, level: c.level, orders: c.orders, boxes: input.boxes, flow: input.flow, spacing: input.spacing})
+    out.push({layout, kind: c.kind, balanced: c.balanced})
+  }
+  return out
+}
+
+/**
+ * Places on the written order's scale (edge ids are written order): an edge's bends at its id, a
+ * vertex at the first edge written into it, a source just before the first edge written out of it,
+ * a vertex with no edges after all of them.
+ */
+function writtenPlaces(g: Digraph): OrderPreference {
+  const rank = new Float64Array(g.vertexCount).fill(Infinity)
+  for (let e = g.edgeCount - 1; e >= 0; e--) {
+    rank[g.head[e]!] = e
+    const t = g.tail[e]!
+    if (g.inStart[t + 1] === g.inStart[t]) rank[t] = e - 0.5
+  }
+  for (let v = 0; v < g.vertexCount; v++) if (rank[v] === Infinity) rank[v] = g.edgeCount + v
+  return {rank, edgeRank: Int32Array.from({length: g.edgeCount}, (_, e) => e)}
+}
+
+/**
+ * Vertices with two or more out-edges whose out-edges leave their box left to right in id order (x
+ * for flows up and down, y for left and right, the directions layout-upward.ts maps left to).
+ * O(m log m).
+ */
+export function writtenOrderKept(g: Digraph, layout: Layout): number {
+  const sideways = layout.flow === 'left' || layout.flow === 'right'
+  let kept = 0
+  for (let v = 0; v < g.vertexCount; v++) {
+    const from = g.outStart[v]!
+    const to = g.outStart[v + 1]!
+    if (to - from < 2) continue
+    const edges = Array.from(g.outEdges.subarray(from, to)).sort((a, b) => a - b)
+    const at = (e: number): number => layout.edges[e]!.points[0]![sideways ? 1 : 0]
+    let ok = true
+    for (let i = 1; i < edges.length && ok; i++) ok = at(edges[i - 1]!) < at(edges[i]!)
+    if (ok) kept++
+  }
+  return kept
+}

@@ -1,0 +1,126 @@
+/**
+ * layoutSmallest (layout/smallest-layout.ts): every drawing it compares passes the exact geometric
+ * checker, its level assignments are valid, it keeps the smallest area, and its rows are bounded below
+ * by a reference outside the project.
+ *
+ * Reference: networkx `dag_longest_path_length` (networkx 3.6 on this machine, one python3 process).
+ * A layered drawing puts the k vertices of a path on k different rows, so no drawing has fewer rows
+ * than the longest path has vertices, and the longest-path layering reaches that (common practice;
+ * e.g. Di Battista, Eades, Tamassia, Tollis, "Graph Drawing", 1999, sec. 9.1).
+ * Data: the North DAGs, /work/shared/data/north/ (see SOURCE.md there).
+ */
+import {spawnSync} from 'node:child_process'
+import {describe, expect, it} from 'vitest'
+import {stAugment} from '../src/augment/index.ts'
+import type {Digraph} from '../src/graph/digraph.ts'
+import {layoutCandidates, layoutSmallest, levelCandidates, writtenOrderKept, type Flow, type Layout} from '../src/layout/index.ts'
+import {testUpwardPlanarity} from '../src/upward/index.ts'
+import {checkDrawing} from './support/geometry-check.ts'
+import {prng, randomBoxes, randomLayoutCase} from './support/layout-st-generator.ts'
+import {createDigraph} from '../src/graph/digraph.ts'
+import {readGraphml} from './support/graphml.ts'
+import {northDir, northFiles} from './support/north-dags.ts'
+
+const flows: Flow[] = ['up', 'right', 'down', 'left']
+
+/** Longest path (in edges) of each DAG, from networkx. */
+function networkxLongestPaths(graphs: ReadonlyArray<{vertexCount: number; edges: ReadonlyArray<readonly [number, number]>}>): number[] {
+  const script = [
+    'import sys, json, networkx as nx',
+    'out = []',
+    'for n, edges in json.load(sys.stdin):',
+    '    g = nx.MultiDiGraph()',
+    '    g.add_nodes_from(range(n))',
+    '    g.add_edges_from(edges)',
+    '    out.append(nx.dag_longest_path_length(g))',
+    'json.dump(out, sys.stdout)',
+  ].join('\n')
+  const r = spawnSync('python3', ['-c', script], {input: JSON.stringify(graphs.map((g) => [g.vertexCount, g.edges])), encoding: 'utf8', maxBuffer: 1 << 28})
+  if (r.status !== 0) throw new Error(`python3/networkx failed: ${r.stderr}`)
+  return JSON.parse(r.stdout) as number[]
+}
+
+/** Distinct box centres along the flow: the rows of a drawing. */
+function rows(layout: Layout): number {
+  const sideways = layout.flow === 'left' || layout.flow === 'right'
+  return new Set(layout.nodes.map((n) => (sideways ? n.x : n.y))).size
+}
+
+function validLevels(g: Digraph, level: Int32Array): string | undefined {
+  let height = 0
+  for (const l of level) height = Math.max(height, l + 1)
+  const used = new Uint8Array(height)
+  for (const l of level) used[l] = 1
+  if (used.includes(0)) return 'an empty level'
+  for (let e = 0; e < g.edgeCount; e++) if (level[g.head[e]!]! <= level[g.tail[e]!]!) return `edge ${e} does not go up`
+  return undefined
+}
+
+describe('North DAGs: every candidate drawing checked, rows against networkx', () => {
+  const files = northFiles()
+  const chunks = 4
+  for (let c = 0; c < chunks; c++) {
+    it(`files ${c + 1}/${chunks}`, () => {
+      const failures: string[] = []
+      const graphs: Array<{file: string; vertexCount: number; edges: Array<[number, number]>; rows: number[]; longestPathRows: number | undefined}> = []
+      let stRows = 0
+      let keptRows = 0
+      for (let i = c; i < files.length; i += chunks) {
+        const {vertexCount, edges} = readGraphml(`${northDir}/${files[i]!}`)
+        const dag = {file: files[i]!, vertexCount, edges}
+        const g = createDigraph(vertexCount, edges)
+        const res = testUpwardPlanarity(g)
+        if (res.status !== 'upward') continue
+        const st = stAugment(res.upward)
+        const boxes = randomBoxes(prng(i + 1), g.vertexCount)
+        const flow = flows[i % 4]!
+        const drawn = layoutCandidates({graph: g, st, boxes, flow})
+        for (const d of drawn) {
+          const check = checkDrawing(g, d.layout, {boxes})
+          if (!check.ok) failures.push(`${dag.file} ${flow} ${d.kind}${d.balanced ? ' balanced' : ''}: ${check.problems.slice(0, 3).join('; ')}`)
+        }
+        for (const lc of levelCandidates(g, st)) {
+          const bad = validLevels(g, lc.level)
+          if (bad) failures.push(`${dag.file} ${lc.kind}: ${bad}`)
+        }
+        const kept = layoutSmallest({graph: g, st, boxes, flow})
+        const area = (l: Layout): number => l.width * l.height
+        const smallest = layoutSmallest({graph: g, st, boxes, flow}, {keepWrittenOrder: false})
+        if (drawn.some((d) => area(d.layout) < area(smallest.layout))) failures.push(`${dag.file}: a smaller candidate was not kept`)
+        if (area(kept.layout) > area(drawn[0]!.layout)) failures.push(`${dag.file}: kept a drawing larger than the st-layout`)
+        if (writtenOrderKept(g, kept.layout) < writtenOrderKept(g, drawn[0]!.layout)) failures.push(`${dag.file}: kept a drawing with less written order`)
+        stRows += rows(drawn[0]!.layout)
+        keptRows += rows(kept.layout)
+        const lp = drawn.find((d) => d.kind === 'longest-path' && !d.balanced)
+        graphs.push({file: dag.file, vertexCount: dag.vertexCount, edges: dag.edges, rows: drawn.map((d) => rows(d.layout)), longestPathRows: lp ? rows(lp.layout) : undefined})
+      }
+      const longest = networkxLongestPaths(graphs)
+      graphs.forEach((g, k) => {
+        const least = longest[k]! + 1
+        if (g.rows.some((r) => r < least)) failures.push(`${g.file}: fewer rows than networkx's longest path allows (${g.rows} < ${least})`)
+        if (g.longestPathRows !== undefined && g.longestPathRows !== least) failures.push(`${g.file}: longest-path drawing has ${g.longestPathRows} rows, networkx says ${least}`)
+      })
+      expect(failures).toEqual([])
+      expect(graphs.length).toBeGreaterThan(150)
+      // The point of the module: fewer rows than the st-layout in total.
+      expect(keptRows).toBeLessThan(stRows)
+    })
+  }
+})
+
+describe('determinism and small cases', () => {
+  it('same input, same drawing and choice', () => {
+    const c = randomLayoutCase(11, 60, 0.9, 0.8)
+    const boxes = randomBoxes(prng(5), c.graph.vertexCount)
+    const a = layoutSmallest({graph: c.graph, st: c.st, boxes, flow: 'up'})
+    const b = layoutSmallest({graph: c.graph, st: c.st, boxes, flow: 'up'})
+    expect(JSON.stringify(b)).toBe(JSON.stringify(a))
+  })
+
+  it('past maxEdges only the st-layout is drawn', () => {
+    const c = randomLayoutCase(12, 40, 0.9, 0.8)
+    const boxes = randomBoxes(prng(6), c.graph.vertexCount)
+    const drawn = layoutCandidates({graph: c.graph, st: c.st, boxes, flow: 'up'}, {maxEdges: c.graph.edgeCount - 1})
+    expect(drawn.map((d) => d.kind)).toEqual(['st'])
+  })
+})
