@@ -1,6 +1,6 @@
 /**
- * `pnpm bench upward [--budget MS] [--runs K] [--stress] [--thinned N]`: the exact upward-planarity test on every North DAG
- * (/work/shared/data/north, see its SOURCE.md), timed per graph. Prints median, p95, max and total,
+ * `pnpm bench upward [--budget MS] [--runs K] [--stress] [--thinned N [--against DIR]]`: the exact
+ * upward-planarity test on every North DAG (/work/shared/data/north, see its SOURCE.md), timed per graph. Prints median, p95, max and total,
  * the same per size decade, counts per answer and per deciding method, and as a reference in the same
  * run the linear-time planarity test on the same graphs (ratio of totals).
  * One untimed pass warms the JIT first; each graph's time is the best of K runs (default 3).
@@ -41,17 +41,28 @@ if (thinned > 0) {
   const g = createDigraph(fam.n, fam.edges)
   // --runs K: K fresh calls in this process (the first one pays for JIT warm-up, as a CLI run
   // does); CPU time beside wall time, since on a shared machine the wall clock counts waiting.
+  // --against DIR: A/B with the upward test of another checkout (e.g. `git worktree add DIR REV`,
+  // node_modules linked), the two called alternately in this process, the order swapped each run.
   const {loadavg} = await import('node:os')
+  const againstAt = process.argv.indexOf('--against')
+  const contenders: Array<[string, typeof testUpwardPlanarity]> = [['this checkout', testUpwardPlanarity]]
+  if (againstAt !== -1) {
+    const dir = process.argv[againstAt + 1]!
+    const other = (await import(`${dir}/packages/core/src/upward/index.ts`)) as {testUpwardPlanarity: typeof testUpwardPlanarity}
+    contenders.push([dir, other.testUpwardPlanarity])
+  }
   for (let run = 1; run <= arg('--runs', 1); run++) {
-    const t0 = performance.now()
-    const c0 = process.cpuUsage()
-    const r = testUpwardPlanarity(g, {maxMillis: budget})
-    const ms = performance.now() - t0
-    const cpu = process.cpuUsage(c0)
-    console.log(
-      `thinned single-source grid: ${g.vertexCount} vertices, ${g.edgeCount} edges, budget ${budget} ms: ${r.status}${r.status === 'undecided' ? '' : ` (${r.method})`} ` +
-        `in ${(ms / 1000).toFixed(2)} s (cpu ${((cpu.user + cpu.system) / 1e6).toFixed(2)} s; run ${run})`
-    )
+    for (const [name, test] of run % 2 === 1 ? contenders : [...contenders].reverse()) {
+      const t0 = performance.now()
+      const c0 = process.cpuUsage()
+      const r = test(g, {maxMillis: budget})
+      const ms = performance.now() - t0
+      const cpu = process.cpuUsage(c0)
+      console.log(
+        `thinned single-source grid: ${g.vertexCount} vertices, ${g.edgeCount} edges, budget ${budget} ms: ${r.status}${r.status === 'undecided' ? '' : ` (${r.method})`} ` +
+          `in ${(ms / 1000).toFixed(2)} s (cpu ${((cpu.user + cpu.system) / 1e6).toFixed(2)} s; run ${run}${contenders.length > 1 ? `, ${name}` : ''})`
+      )
+    }
   }
   console.log(`load average ${loadavg().map((l) => l.toFixed(1)).join(' ')}`)
   process.exit(0)
