@@ -11,6 +11,7 @@
  * module through tsx (Node 20 workers do not inherit the main thread's loader hooks); a built `.js`
  * CLI starts check-worker.js directly.
  */
+import {availableParallelism} from 'node:os'
 import {setFlagsFromString} from 'node:v8'
 import {threadId} from 'node:worker_threads'
 import {bytesWrittenInThread} from '@upright/cache'
@@ -52,7 +53,7 @@ export async function checkFiles(files: readonly string[], options: Omit<CheckFi
     return reports
   }
   const {Tinypool} = await import('tinypool')
-  tierUpLaterInWorkers()
+  if (jobs >= availableParallelism()) tierUpLaterInWorkers()
   const workers = new Tinypool({
     filename: workerUrl().href,
     minThreads: jobs,
@@ -93,14 +94,14 @@ function record(timing: Map<number, ThreadTiming>, result: CheckTaskResult): voi
 /**
  * V8's interrupt budget (bytecode a function runs before the runtime considers optimizing it) raised
  * from Node 20's 67,584 to 8× that, before the workers start, so each isolate sends fewer functions to
- * its optimizing compiler. Every worker isolate compiles the same code again on the shared pool of
- * V8 helper threads, and on two cores that work competes with the workers themselves. Over the site
- * bench's 2,000 files, two jobs, the process used 13% less CPU (14.5 s → 12.6 s, three alternating
- * runs each; over 1,000 files 878 → 496 optimizing compilations), the workers' own threads about
- * the same (bench/README.md, Scale).
- * Process-wide, so it is set only here, where the main thread does nothing but deal out names; a
- * one-job run keeps the default (there the compiler has the spare core, and a later tier-up cost
- * its one thread ~5%). Tiers change speed, not what the code computes.
+ * its optimizing compiler. Every worker isolate compiles the same code again on V8's helper threads;
+ * when the workers fill the cores, that compiling takes cores from them, and a run takes at least the
+ * process's CPU time over the cores. Over the site bench's 2,000 files, two jobs on two cores, one
+ * build with and without (alternating, load 6–7): process CPU 14.3–14.6 s → 12.3–13.6 s, the
+ * workers' own threads 8.7–8.9 s → 9.0–9.9 s (they run unoptimized code longer); over 1,000 files
+ * 878 → 496 optimizing compilations (bench/README.md, Scale). With fewer jobs than cores, or one job,
+ * the compiler has a spare core and the default is kept. Process-wide, so set only here, where the
+ * main thread does nothing but deal out names. Tiers change speed, not what the code computes.
  */
 let tieredUp = false
 function tierUpLaterInWorkers(): void {
