@@ -565,13 +565,28 @@ function peelPlanar(
       part[s] = id
       let head = fill
       members[fill++] = s
+      // the loops of `around`, written out: this search runs once per candidate over the whole rest
       while (head < fill) {
-        around(members[head++]!, (_, w) => {
+        const v = members[head++]!
+        for (let p = adjStart[v]!; p < adjStart[v + 1]!; p++) {
+          const i = adj[p]!
+          if (taken[i] !== 0) continue
+          const w = ia[i] === v ? ib[i]! : ia[i]!
           if (part[w] === 0) {
             part[w] = id
             members[fill++] = w
           }
-        })
+        }
+        const ex = extraAt[v]
+        if (ex === undefined) continue
+        for (const i of ex) {
+          if (eTaken[i - L] !== 0) continue
+          const w = far(i, v)
+          if (part[w] === 0) {
+            part[w] = id
+            members[fill++] = w
+          }
+        }
       }
       partStart.push(fill)
     }

@@ -729,18 +729,22 @@ function pertinentDegrees(
         const sub = down[child]!
         const childRef = tc.components[child]!.edges.find((f) => f.virtual === e.virtual)!
         deg.hasSource ||= sub.hasSource
-        for (const [pole, inK, outK] of [
-          [childRef.a, sub.inA, sub.outA],
-          [childRef.b, sub.inB, sub.outB]
-        ] as const) {
-          if (pole === a) {
-            deg.inA += inK
-            deg.outA += outK
-          }
-          if (pole === b) {
-            deg.inB += inK
-            deg.outB += outK
-          }
+        // a pole of the child counts where it is a or b (it may be neither)
+        if (childRef.a === a) {
+          deg.inA += sub.inA
+          deg.outA += sub.outA
+        }
+        if (childRef.a === b) {
+          deg.inB += sub.inA
+          deg.outB += sub.outA
+        }
+        if (childRef.b === a) {
+          deg.inA += sub.inB
+          deg.outA += sub.outB
+        }
+        if (childRef.b === b) {
+          deg.inB += sub.inB
+          deg.outB += sub.outB
         }
       }
       if (s !== a && s !== b && (e.a === s || e.b === s)) deg.hasSource = true
@@ -772,27 +776,40 @@ function farSide(
   const e = tc.components[c]!.edges[i]!
   const l = tc.links[e.virtual]!
   const other = l.node[0] === c ? l.node[1] : l.node[0]
-  let k: PoleDegrees, a: number, b: number
+  // one object per virtual edge, built in place (no spreads: this runs once per skeleton edge)
   if (tree.parentLink[other] === e.virtual) {
     // K is the pertinent part of the child `other`, with poles named as in that child
     const ref = tc.components[other]!.edges.find((f) => f.virtual === e.virtual)!
     const sub = down[other]!
-    ;[a, b] = [e.a, e.b]
-    k = ref.a === a ? {...sub} : {inA: sub.inB, outA: sub.outB, inB: sub.inA, outB: sub.outA, hasSource: sub.hasSource}
-  } else {
-    // K is everything outside c's own pertinent part
-    const ref = tc.components[c]!.edges.find((f) => f.virtual === e.virtual)!
-    const sub = down[c]!
-    ;[a, b] = [ref.a, ref.b]
-    k = {
-      inA: indeg.get(a)! - sub.inA,
-      outA: outdeg.get(a)! - sub.outA,
-      inB: indeg.get(b)! - sub.inB,
-      outB: outdeg.get(b)! - sub.outB,
-      hasSource: s !== a && s !== b && !sub.hasSource
+    const same = ref.a === e.a
+    const inA = same ? sub.inA : sub.inB, inB = same ? sub.inB : sub.inA
+    return {
+      inA,
+      outA: same ? sub.outA : sub.outB,
+      inB,
+      outB: same ? sub.outB : sub.outA,
+      hasSource: sub.hasSource,
+      a: e.a,
+      b: e.b,
+      aSourceOutside: indeg.get(e.a)! - inA === 0,
+      bSourceOutside: indeg.get(e.b)! - inB === 0
     }
   }
-  return {...k, a, b, aSourceOutside: indeg.get(a)! - k.inA === 0, bSourceOutside: indeg.get(b)! - k.inB === 0}
+  // K is everything outside c's own pertinent part
+  const ref = tc.components[c]!.edges.find((f) => f.virtual === e.virtual)!
+  const sub = down[c]!
+  const a = ref.a, b = ref.b
+  return {
+    inA: indeg.get(a)! - sub.inA,
+    outA: outdeg.get(a)! - sub.outA,
+    inB: indeg.get(b)! - sub.inB,
+    outB: outdeg.get(b)! - sub.outB,
+    hasSource: s !== a && s !== b && !sub.hasSource,
+    a,
+    b,
+    aSourceOutside: sub.inA === 0,
+    bSourceOutside: sub.inB === 0
+  }
 }
 
 /**
