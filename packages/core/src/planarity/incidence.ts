@@ -65,44 +65,47 @@ export function incidenceOfDigraph(g: Digraph): Incidence | null {
   const m = g.edgeCount
   const {outStart, outEdges, inStart, inEdges, head, tail} = g
   const adjStart = new Int32Array(n + 1)
+  let maxDegree = 0
   for (let v = 0; v < n; v++) {
-    adjStart[v + 1] = adjStart[v]! + outStart[v + 1]! - outStart[v]! + inStart[v + 1]! - inStart[v]!
+    const d = outStart[v + 1]! - outStart[v]! + inStart[v + 1]! - inStart[v]!
+    adjStart[v + 1] = adjStart[v]! + d
+    if (d > maxDegree) maxDegree = d
   }
   const slot = new Int32Array(4 * m)
   const fill = adjStart.slice(0, n)
+  // Each vertex's edges and other ends are first copied into a short local list by a loop that does
+  // not branch on what it reads, so the scattered reads of head[e] and tail[e] are all in flight at
+  // once; the loop that branches on them (which end is smaller, repeats) then reads the local list.
+  const edge = new Int32Array(maxDegree)
+  const other = new Int32Array(maxDegree)
   // Repeated pairs: as in simplify, a vertex of small degree looks through its own short list (in
   // cache), a larger one marks its neighbours in a stamp array; O(NEAR) per edge end either way.
-  const near = new Int32Array(NEAR)
-  let nearCount = 0
   let stamp: Int32Array | null = null
-  // Append edge e = {u, w}, w > u, to both slot lists; false if the pair was met before.
-  const add = (u: number, e: number, w: number): boolean => {
-    if (stamp !== null) {
-      if (stamp[w] === u) return false
-      stamp[w] = u
-    } else {
-      for (let j = 0; j < nearCount; j++) if (near[j] === w) return false
-      near[nearCount++] = w
-    }
-    const s = 2 * fill[u]!++, t = 2 * fill[w]!++
-    slot[s] = e; slot[s + 1] = w
-    slot[t] = e; slot[t + 1] = u
-    return true
-  }
-  let stampAll: Int32Array | null = null
   for (let u = 0; u < n; u++) {
     const o0 = outStart[u]!, o1 = outStart[u + 1]!, i0 = inStart[u]!, i1 = inStart[u + 1]!
-    nearCount = 0
-    stamp = null
-    if (o1 - o0 + i1 - i0 > NEAR) stamp = stampAll ??= new Int32Array(n).fill(-1)
-    for (let i = o0; i < o1; i++) {
-      const e = outEdges[i]!, w = head[e]!
-      if (w === u) return null // a loop
-      if (w > u && !add(u, e, w)) return null
-    }
-    for (let i = i0; i < i1; i++) {
-      const e = inEdges[i]!, w = tail[e]!
-      if (w > u && !add(u, e, w)) return null
+    let d = 0
+    for (let i = o0; i < o1; i++) { const e = outEdges[i]!; edge[d] = e; other[d++] = head[e]! }
+    for (let i = i0; i < i1; i++) { const e = inEdges[i]!; edge[d] = e; other[d++] = tail[e]! }
+    const big = d > NEAR
+    if (big && stamp === null) stamp = new Int32Array(n).fill(-1)
+    let taken = 0 // other[0 .. taken) are the larger ends met so far, when not big
+    for (let j = 0; j < d; j++) {
+      const w = other[j]!
+      if (w <= u) {
+        if (w === u) return null // a loop
+        continue
+      }
+      if (big) {
+        if (stamp![w] === u) return null
+        stamp![w] = u
+      } else {
+        for (let k = 0; k < taken; k++) if (other[k] === w) return null
+        other[taken++] = w
+      }
+      const e = edge[j]!
+      const s = 2 * fill[u]!++, t = 2 * fill[w]!++
+      slot[s] = e; slot[s + 1] = w
+      slot[t] = e; slot[t + 1] = u
     }
   }
   return {vertexCount: n, edgeCount: m, adjStart, slot, labelsAreIds: true}
