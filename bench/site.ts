@@ -1,7 +1,8 @@
 /**
- * `pnpm bench site [--files N] [--diagrams N] [--repeat R]`: `upright check` over a generated
- * documentation tree (default 2,000 Markdown files holding 5,000 diagrams of 5–80 vertices, mostly
- * upward planar; see packages/cli/test/support/docs-tree.ts), each run a fresh process as in CI.
+ * `pnpm bench site [--files N] [--diagrams N] [--repeat R] [--node-flag F ...]`: `upright check`
+ * over a generated documentation tree (default 2,000 Markdown files holding 5,000 diagrams of 5–80
+ * vertices, mostly upward planar; see packages/cli/test/support/docs-tree.ts), each run a fresh
+ * process as in CI.
  *
  * The CLI runs as users run it: compiled. The packages are built with tsc from their
  * tsconfig.build.json (as `pnpm --filter … build` does; type checking skipped, the JavaScript is the
@@ -40,6 +41,10 @@ const arg = (name: string, fallback: number) => {
 const fileCount = arg('files', 2000)
 const diagramCount = arg('diagrams', 5000)
 const repeat = Math.max(1, arg('repeat', 1))
+// `--node-flag F` (repeatable): a node or V8 flag for every `upright check` process, e.g.
+// `--node-flag --no-concurrent-recompilation` to see what the optimizing compiler costs a thread.
+const nodeFlags = args.flatMap((a, i) => (a === '--node-flag' && args[i + 1] !== undefined ? [args[i + 1]!] : []))
+if (nodeFlags.length > 0) console.log(`node flags for every run: ${nodeFlags.join(' ')}`)
 const load = () => loadavg()[0]!.toFixed(1)
 
 const work = mkdtempSync(path.join(tmpdir(), 'upright-site-'))
@@ -118,7 +123,7 @@ interface Run {
 function check(name: string, jobs: number, cacheDir: string, target = docs, fromSources = false): Run {
   const timing = path.join(work, 'time.txt')
   const before = load()
-  const node = fromSources ? [process.execPath, '--import', tsx, path.join(root, 'packages/cli/src/bin.ts')] : [process.execPath, builtBin]
+  const node = fromSources ? [process.execPath, ...nodeFlags, '--import', tsx, path.join(root, 'packages/cli/src/bin.ts')] : [process.execPath, ...nodeFlags, builtBin]
   const child = spawnSync(
     '/usr/bin/time',
     ['-o', timing, '-f', '%e %U %S %M', ...node, 'check', '--format', 'json', '--timing', '--jobs', String(jobs), '--cache-dir', cacheDir, target],

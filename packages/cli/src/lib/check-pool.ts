@@ -107,6 +107,8 @@ let tieredUp = false
 function tierUpLaterInWorkers(): void {
   if (tieredUp) return
   tieredUp = true
+  // A budget given on node's command line (`node --interrupt-budget=N`, as bench/site.ts can) wins.
+  if (process.execArgv.some((a) => /^--interrupt[-_]budget=/.test(a))) return
   setFlagsFromString('--interrupt-budget=540672')
 }
 
