@@ -11,16 +11,20 @@
  * the exact upward test and stAugment; and random upward planar graphs of 100 .. 10,000 vertices
  * (spanning subgraphs of random planar st-graphs; which generator and augmentation per size is printed
  * with the table). The layout time excludes the test and the augmentation (printed apart).
- * Crossings are counted geometrically on both drawings (layoutStats); ours must be 0.
+ * Crossings are counted geometrically on both drawings (layoutStats); ours must be 0. At the end: how
+ * many vertices show their out-edges in written order in the drawing (st-layout alone and kept).
  */
-import {readdirSync} from 'node:fs'
+import {readdirSync, readFileSync} from 'node:fs'
 import {cpus, loadavg} from 'node:os'
 import {join} from 'node:path'
 import {dagreLayout, type Box} from './support/dagre-layout.ts'
 import {createDigraph, type Digraph} from '../packages/core/src/graph/digraph.ts'
 import {testUpwardPlanarity} from '../packages/core/src/upward/index.ts'
 import {stAugment, type StAugmentation} from '../packages/core/src/augment/index.ts'
-import {layoutSmallest, layoutStats, layoutUpward, type Layout} from '../packages/core/src/layout/index.ts'
+import {layoutSmallest, layoutStats, layoutUpward, writtenOrderKept, type Layout} from '../packages/core/src/layout/index.ts'
+import {checkDiagram, drawDiagram} from '../packages/core/src/index.ts'
+import {demoBodies} from '../test/demo/demo-graphs.ts'
+import {mulberry32 as prng} from '../test/support/random.ts'
 import {readGraphml} from '../packages/core/test/support/graphml.ts'
 import {randomUpwardPlanar} from '../packages/core/test/support/random-st.ts'
 import {augmentationOfRandomUpward, randomLayoutCase} from '../packages/core/test/support/layout-st-generator.ts'
@@ -181,5 +185,48 @@ if (target) {
   runs.sort((a, b) => a[0] + a[1] - b[0] - b[1])
   const show = ([l, s]: [number, number]): string => `layout ${fmt(l)} ms + SVG ${fmt(s)} ms = ${fmt(l + s)} ms`
   console.log(`\n1,000 vertices to optimized SVG, 5 runs: best ${show(runs[0]!)}, median ${show(runs[2]!)}`)
+}
+// Written order in the drawing: of the vertices with two or more out-edges, how many show them left to
+// right in written order (writtenOrderKept), in the st-layout alone and in the drawing kept (flow up),
+// on the diagrams bench/written-order.ts uses (demo pages, golden fixtures, 600 random texts, seed
+// 4242) without tiers or edge labels.
+{
+  const repo = join(import.meta.dirname, '..')
+  const handwritten: string[] = demoBodies(join(repo, 'site-demo/pages')).map((b) => b.body)
+  for (const d of readdirSync(join(repo, 'fixtures/golden'), {withFileTypes: true}).filter((x) => x.isDirectory())) {
+    handwritten.push(readFileSync(join(repo, 'fixtures/golden', d.name, 'input.upright'), 'utf8'))
+  }
+  const random = prng(4242)
+  const generated: string[] = []
+  for (let round = 0; round < 600; round++) {
+    const n = 4 + Math.floor(random() * 12)
+    const lines: string[] = []
+    for (let u = 0; u < n; u++) for (let w = u + 1; w < n; w++) if (random() < 0.25) lines.push(`v${u} -> v${w}`)
+    for (let i = lines.length - 1; i > 0; i--) {
+      const j = Math.floor(random() * (i + 1))
+      ;[lines[i], lines[j]] = [lines[j]!, lines[i]!]
+    }
+    if (lines.length > 0) generated.push(lines.join('\n'))
+  }
+  console.log('\nWritten order in the drawing (vertices with 2+ out-edges drawn left to right as written), flow up:')
+  for (const [name, texts] of [['demo + golden', handwritten], ['random', generated]] as const) {
+    let diagrams = 0, vertices = 0, stKept = 0, kept = 0, stArea = 0, area = 0
+    for (const text of texts) {
+      const check = checkDiagram(text, {budgetMillis: 20_000})
+      if (check.status !== 'upward' || check.labels || check.levels) continue
+      const drawn = drawDiagram(check, {flow: 'up'})
+      if (!drawn.ok) continue
+      const g = drawn.drawing.graph
+      const boxes = drawn.drawing.layout.nodes.map((b) => ({width: b.width, height: b.height}))
+      const st = layoutUpward({graph: g, st: drawn.drawing.st, boxes, flow: 'up'})
+      diagrams++
+      for (let v = 0; v < g.vertexCount; v++) if (g.outStart[v + 1]! - g.outStart[v]! >= 2) vertices++
+      stKept += writtenOrderKept(g, st)
+      kept += writtenOrderKept(g, drawn.drawing.layout)
+      stArea += st.width * st.height
+      area += drawn.drawing.layout.width * drawn.drawing.layout.height
+    }
+    console.log(`  ${name}: ${diagrams} diagrams, ${vertices} vertices; st-layout ${stKept} (${fmt((100 * stKept) / vertices)}%), kept drawing ${kept} (${fmt((100 * kept) / vertices)}%); area kept/st ${fmt(area / stArea, 3)}`)
+  }
 }
 console.log(`load average at end ${load()}`)

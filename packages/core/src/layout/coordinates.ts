@@ -20,10 +20,16 @@
  * layer's packed width when it is wider (see below). Starting compact matters for the area: before
  * that, the width of large drawings was mostly an echo of the start's.
  *
- * A last few passes move single bends onto the line of a neighbouring segment where the separations
- * allow, which merges the slight kinks the sweeps leave on long edges into straight runs.
+ * The least width any coordinates with the orders can have is the widest layer packed. When the sweeps
+ * leave the drawing wider, every layer is clamped into a window that wide and a few more sweeps run
+ * inside it (each layer's bounded problem is the isotonic one with its solution clamped), so the
+ * drawing is as narrow as its orders allow; this lowered the area on the North DAGs
+ * (bench/README.md, Layout) at the cost of more slanted edges.
  *
- * Time: O(objects + segments) per sweep, SWEEPS sweeps and STRAIGHTEN_PASSES passes.
+ * A last few passes move single bends onto the line of a neighbouring segment where the separations
+ * (and the window) allow, which merges the slight kinks the sweeps leave on long edges into straight runs.
+ *
+ * Time: O(objects + segments) per sweep, SWEEPS (+ WINDOW_SWEEPS) sweeps and STRAIGHTEN_PASSES passes.
  */
 
 export interface LayeredGraph {
@@ -42,6 +48,8 @@ export interface LayeredGraph {
 }
 
 const SWEEPS = 24
+/** Sweeps inside the narrower window, when the first ones spread wider than needed. */
+const WINDOW_SWEEPS = 8
 /** Straightening passes after the sweeps (see the end of assignCoordinates). */
 const STRAIGHTEN_PASSES = 4
 /** Pull towards the current place, so objects without segments stay put and weights never vanish. */
@@ -96,6 +104,10 @@ export function assignCoordinates(
     }
   }
 
+  // Bounds across the flow for every object's extent: none at first, `need` wide after the sweeps
+  // if the drawing came out wider (see below).
+  let windowLeft = -Infinity
+  let windowRight = Infinity
   const solveLayer = (layer: Int32Array, useSegments: boolean): void => {
     const k = layer.length
     if (k === 0) return
@@ -119,10 +131,14 @@ export function assignCoordinates(
       target[i] = wt / w - acc
     }
     isotonic(k)
+    // Inside a window, y = x - offset has the same bounds for the whole layer, and clamping the
+    // isotonic solution to constant bounds gives the bounded optimum.
+    const yLo = windowLeft + lg.half[layer[0]!]!
+    const yHi = windowRight - lg.half[layer[k - 1]!]! - offset[k - 1]!
     let b = 0
     let i = 0
     while (i < k) {
-      const mean = blockWT[b]! / blockW[b]!
+      const mean = Math.min(yHi, Math.max(yLo, blockWT[b]! / blockW[b]!))
       for (; i < blockEnd[b]!; i++) x[layer[i]!] = mean + offset[i]!
       b++
     }
@@ -171,6 +187,23 @@ export function assignCoordinates(
     if (sweep % 2 === 0) for (let r = 0; r < L; r++) solveLayer(lg.layers[r]!, true)
     else for (let r = L - 1; r >= 0; r--) solveLayer(lg.layers[r]!, true)
   }
+  // No drawing with these orders can be narrower than `need`. If the sweeps spread wider, clamp
+  // into a window that wide, centred on the drawing, and sweep again inside it, so edges straighten
+  // as far as the narrower room allows.
+  if (squeeze(lg, x, need, nodeGap, edgeGap)) {
+    let lo = Infinity
+    let hi = -Infinity
+    for (let o = 0; o < count; o++) {
+      lo = Math.min(lo, x[o]! - lg.half[o]!)
+      hi = Math.max(hi, x[o]! + lg.half[o]!)
+    }
+    windowLeft = lo
+    windowRight = hi
+    for (let sweep = 0; sweep < WINDOW_SWEEPS; sweep++) {
+      if (sweep % 2 === 0) for (let r = 0; r < L; r++) solveLayer(lg.layers[r]!, true)
+      else for (let r = L - 1; r >= 0; r--) solveLayer(lg.layers[r]!, true)
+    }
+  }
 
   // Straightening: the sweeps leave long edges with many slight kinks (each a bend in the drawing).
   // Move each bend onto the line of one of its two segments' other ends (the nearer that fits) when
@@ -184,8 +217,8 @@ export function assignCoordinates(
     for (let i = 0; i < layer.length; i++) {
       const o = layer[i]!
       if (lg.isBox[o] || start[o + 1]! - start[o]! !== 2) continue
-      const lo = i > 0 ? x[layer[i - 1]!]! + separation(lg, layer[i - 1]!, o, nodeGap, edgeGap) : -Infinity
-      const hi = i + 1 < layer.length ? x[layer[i + 1]!]! - separation(lg, o, layer[i + 1]!, nodeGap, edgeGap) : Infinity
+      const lo = i > 0 ? x[layer[i - 1]!]! + separation(lg, layer[i - 1]!, o, nodeGap, edgeGap) : windowLeft + lg.half[o]!
+      const hi = i + 1 < layer.length ? x[layer[i + 1]!]! - separation(lg, o, layer[i + 1]!, nodeGap, edgeGap) : windowRight - lg.half[o]!
       const s0 = inc[start[o]!]!
       const s1 = inc[start[o]! + 1]!
       // Only along the edge's own chain of bends: next to a box, a slanted segment through a bend
@@ -203,4 +236,42 @@ export function assignCoordinates(
     else for (let r = L - 1; r >= 0; r--) straighten(lg.layers[r]!)
   }
   return x
+}
+
+/**
+ * The least width any coordinates with these orders can have is `need`, the widest layer packed. When
+ * the drawing is wider, clamp every layer into a window that wide, centred on the drawing: a pass
+ * left to right raises each object to at least the window's left end plus what lies packed before it,
+ * and a pass right to left lowers each to at most the window's right end minus what lies packed after
+ * it. Both keep the order and the separations (a layer's packed width fits the window, so the bounds
+ * never cross), and objects already inside with room to spare do not move. Every point of a route
+ * lies within its objects' extents across the flow, so the drawing is then `need` wide. O(objects).
+ */
+function squeeze(lg: LayeredGraph, x: Float64Array, need: number, nodeGap: number, edgeGap: number): boolean {
+  let lo = Infinity
+  let hi = -Infinity
+  for (let o = 0; o < lg.objectCount; o++) {
+    lo = Math.min(lo, x[o]! - lg.half[o]!)
+    hi = Math.max(hi, x[o]! + lg.half[o]!)
+  }
+  if (!(hi - lo > need)) return false
+  const left = (lo + hi) / 2 - need / 2
+  const right = left + need
+  for (const layer of lg.layers) {
+    const k = layer.length
+    if (k === 0) continue
+    let min = left + lg.half[layer[0]!]!
+    for (let i = 0; i < k; i++) {
+      const o = layer[i]!
+      if (i > 0) min = Math.max(min, x[layer[i - 1]!]! + separation(lg, layer[i - 1]!, o, nodeGap, edgeGap))
+      if (x[o]! < min) x[o] = min
+    }
+    let max = right - lg.half[layer[k - 1]!]!
+    for (let i = k - 1; i >= 0; i--) {
+      const o = layer[i]!
+      if (i < k - 1) max = Math.min(max, x[layer[i + 1]!]! - separation(lg, o, layer[i + 1]!, nodeGap, edgeGap))
+      if (x[o]! > max) x[o] = max
+    }
+  }
+  return true
 }
