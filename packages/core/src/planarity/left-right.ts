@@ -173,11 +173,11 @@ function run(inc: Incidence, embed: boolean): SimpleRotation | null {
   const half = new Int32Array(m) // the label of the edge end at src (see incidence.ts)
   const parentEdge = new Int32Array(n).fill(NONE)
   const outStart = new Int32Array(n + 1)
+  let maxDegree = 0
+  for (let p = 0; p < n; p++) maxDegree = Math.max(maxDegree, blockStart[p + 1]! - blockStart[p]!)
+  const key = new Int32Array(maxDegree), at = new Int32Array(maxDegree)
+  const sorter = new LocalSorter(maxDegree)
   {
-    let maxDegree = 0
-    for (let p = 0; p < n; p++) maxDegree = Math.max(maxDegree, blockStart[p + 1]! - blockStart[p]!)
-    const key = new Int32Array(maxDegree), at = new Int32Array(maxDegree)
-    const sorter = new LocalSorter(maxDegree)
     let c = 0
     for (let pv = 0; pv < n; pv++) {
       outStart[pv] = c
@@ -195,20 +195,6 @@ function run(inc: Incidence, embed: boolean): SimpleRotation | null {
       }
     }
     outStart[n] = c
-  }
-  const byKey = new Int32Array(m)
-  const count = new Int32Array(4 * n + 5)
-
-  // sortOut for phase 3: stable counting sort of all edges by key[e] + offset (in 0 .. range), then
-  // stable distribution into the out-list of group[e]: out-lists sorted by key.
-  const sortOut = (key: Int32Array, offset: number, range: number, group: Int32Array, out: Int32Array): void => {
-    count.fill(0, 0, range + 2)
-    for (let e = 0; e < m; e++) count[key[e]! + offset + 1]!++
-    for (let k = 0; k < range; k++) count[k + 1]! += count[k]!
-    for (let e = 0; e < m; e++) byKey[count[key[e]! + offset]!++] = e
-    const fill = count // reuse: the key counts are spent
-    fill.set(outStart.subarray(0, n))
-    for (let i = 0; i < m; i++) { const e = byKey[i]!; out[fill[group[e]!]!++] = e }
   }
 
   // ---- Phase 2: testing ---------------------------------------------------------------------------
@@ -349,7 +335,7 @@ function run(inc: Incidence, embed: boolean): SimpleRotation | null {
 
   // ---- Phase 3: embedding -------------------------------------------------------------------------
   // Resolve signs: side[e] *= sign(ref[e]) along ref chains, iteratively.
-  const chain = byKey // the next sort refills it
+  const chain = block.subarray(7 * m, 8 * m) // spent since the renumbering
   for (let e0 = 0; e0 < m; e0++) {
     let len = 0
     let e = e0
@@ -361,8 +347,15 @@ function run(inc: Incidence, embed: boolean): SimpleRotation | null {
     }
   }
   for (let e = 0; e < m; e++) nesting[e] = nesting[e]! * side[e]!
+  // Each out-list again sorted on the spot, now by signed nesting depth (shifted to be non-negative),
+  // ties in edge id order, i.e. in the previous order: out[outStart[v] ..) lists v's edges.
   const out = new Int32Array(m)
-  sortOut(nesting, 2 * n + 1, 4 * n + 3, src, out)
+  for (let v = 0; v < n; v++) {
+    const i0 = outStart[v]!, len = outStart[v + 1]! - i0
+    for (let j = 0; j < len; j++) { key[j] = nesting[i0 + j]! + 2 * n + 1; at[j] = i0 + j }
+    sorter.sort(key, at, len)
+    for (let j = 0; j < len; j++) out[i0 + j] = at[j]!
+  }
 
   // Cyclic doubly linked lists of half-edges around each vertex. Half-edge 2e sits at src[e],
   // 2e+1 at dst[e]. "next" is the clockwise successor.
