@@ -72,12 +72,15 @@ function run(inc: Incidence, embed: boolean): SimpleRotation | null {
   // What phase 1 learns about an edge goes to a record of 4 ints in `block`, laid out by DFS preorder:
   // the vertex discovered p-th owns records blockStart[p] .. blockStart[p+1), one per incidence slot in
   // slot order. Record b of an edge oriented away from that vertex holds block[4b] the other end's
-  // preorder number, block[4b+1] its lowpoint, block[4b+2] its second lowpoint while open and its
-  // nesting depth once finished, block[4b+3] the half-edge; block[4b] is NONE for any other slot.
-  // The records are written near the DFS frontier, so the renumbering below reads them in order.
+  // preorder number, block[4b+1] its lowpoint, block[4b+2] its nesting depth, block[4b+3] the
+  // half-edge; block[4b] is NONE for any other slot. The records are written near the DFS frontier,
+  // so the renumbering below reads them in order, and only written: the lowpoints of a tree edge,
+  // while its subtree is open, are kept on the stack (the path, in cache), so that coming back to a
+  // vertex after a large subtree does not wait on reading its record.
   // Per input vertex only vert[2v] height (NONE while unvisited) and vert[2v+1] preorder number: one
   // scattered read per edge end, the one the DFS cannot avoid. The DFS stack holds the path, indexed
-  // by height: vertex, scan slot, end slot, slot-to-record offset, and the record of its parent edge.
+  // by height: vertex, scan slot, end slot, slot-to-record offset, the record of its parent edge and
+  // that edge's lowpoint and second lowpoint so far.
   const vert = new Int32Array(2 * n).fill(NONE)
   const block = new Int32Array(4 * 2 * m)
   const blockStart = new Int32Array(n + 1)
@@ -89,24 +92,24 @@ function run(inc: Incidence, embed: boolean): SimpleRotation | null {
   const stEnd = new Int32Array(n)
   const stOffset = new Int32Array(n)
   const stParent = new Int32Array(n)
+  const stLow = new Int32Array(n)
+  const stLow2 = new Int32Array(n)
   const roots: number[] = [] // by preorder number
   let preCount = 0
   let blockTop = 0
 
-  // Nesting depth of finished record b (its source at height h), and lowpoint propagation to the
-  // source's parent edge, record pb (NONE at a root).
-  const finishOrient = (b: number, h: number, pb: number): void => {
-    const lp = block[4 * b + 1]!, lp2 = block[4 * b + 2]!
-    block[4 * b + 2] = 2 * lp + (lp2 < h ? 1 : 0) // +1: chordal
-    if (pb === NONE) return
-    const plp = block[4 * pb + 1]!
+  // A finished out-edge of the vertex at height h, with lowpoints lp <= lp2, updates the lowpoints of
+  // that vertex's parent edge (h > 0): the smallest, and the smallest above it. Minima, so the order
+  // in which out-edges finish does not matter.
+  const mergeLow = (h: number, lp: number, lp2: number): void => {
+    const plp = stLow[h]!
     if (lp < plp) {
-      block[4 * pb + 2] = Math.min(plp, lp2)
-      block[4 * pb + 1] = lp
+      stLow2[h] = Math.min(plp, lp2)
+      stLow[h] = lp
     } else if (lp > plp) {
-      block[4 * pb + 2] = Math.min(block[4 * pb + 2]!, lp)
+      stLow2[h] = Math.min(stLow2[h]!, lp)
     } else {
-      block[4 * pb + 2] = Math.min(block[4 * pb + 2]!, lp2)
+      stLow2[h] = Math.min(stLow2[h]!, lp2)
     }
   }
   // Discover w at height h (= its stack index) through parent edge record pb.
@@ -118,6 +121,7 @@ function run(inc: Incidence, embed: boolean): SimpleRotation | null {
     blockStart[preCount++] = blockTop
     const s0 = adjStart[w]!, s1 = adjStart[w + 1]!
     vstack[h] = w; stScan[h] = s0; stEnd[h] = s1; stOffset[h] = blockTop - s0; stParent[h] = pb
+    stLow[h] = h - 1; stLow2[h] = h - 1 // a tree edge starts with its source's height
     blockTop += s1 - s0
   }
 
@@ -137,19 +141,24 @@ function run(inc: Incidence, embed: boolean): SimpleRotation | null {
         const hw = vert[2 * w]!
         const b = s + stOffset[t]!
         if (hw !== NONE && hw >= t - 1) { block[4 * b] = NONE; continue }
-        block[4 * b + 2] = t
         block[4 * b + 3] = slot[2 * s]!
         if (hw === NONE) {
-          block[4 * b] = preCount; block[4 * b + 1] = t
+          block[4 * b] = preCount
           discover(w, ++t, b)
         } else {
-          block[4 * b] = vert[2 * w + 1]!; block[4 * b + 1] = hw // back edge
-          finishOrient(b, t, stParent[t]!)
+          // A back edge: lowpoint hw, second lowpoint t (its source), so nesting depth 2 hw.
+          block[4 * b] = vert[2 * w + 1]!; block[4 * b + 1] = hw; block[4 * b + 2] = 2 * hw
+          if (t > 0) mergeLow(t, hw, t)
         }
       } else {
+        // The tree edge into the vertex at height t is finished: its record gets its lowpoint and
+        // nesting depth (+1: chordal, a second lowpoint below its source at height t - 1).
+        const lp = stLow[t]!, lp2 = stLow2[t]!
         const pb = stParent[t]!
         t--
-        if (pb !== NONE) finishOrient(pb, t, stParent[t]!)
+        if (pb === NONE) continue
+        block[4 * pb + 1] = lp; block[4 * pb + 2] = 2 * lp + (lp2 < t ? 1 : 0)
+        if (t > 0) mergeLow(t, lp, lp2)
       }
     }
   }
