@@ -7,7 +7,7 @@
  * Families (seeded): random maximal planar graphs (3n - 6 edges, planar: both sides build an
  * embedding) and near-planar graphs (a maximal planar graph with 10% of its edges removed and 3 random
  * edges added: the edge count does not decide, so both sides run the full test; decision only, no
- * certificate, on both sides). Each maximal planar graph is also run with BFS vertex labels (same graph,
+ * certificate, on both sides: ours is isPlanar(g)). Each maximal planar graph is also run with BFS vertex labels (same graph,
  * neighbours close in memory) to tell the algorithm's growth from cache misses caused by random labels.
  * Then Kuratowski extraction time on near-planar graphs.
  * Times are CPU time (process.cpuUsage / time.process_time), medians (and, for ours, the best) over
