@@ -157,9 +157,14 @@ function decideCore(red: Reduction, expired: () => boolean, preferWrittenOrder: 
   const k = red.coreVertices.length
   const local = new Map<number, number>()
   red.coreVertices.forEach((v, i) => local.set(v, i))
-  const tail = red.coreEdges.map((e) => local.get(red.tail[e]!)!)
-  const head = red.coreEdges.map((e) => local.get(red.head[e]!)!)
-  const m = tail.length
+  // Typed arrays, not Array#map results: a map result is holey or packed depending on whether the
+  // caller runs optimized, and the search and assignment below, fed both, deoptimized on "wrong map".
+  const m = red.coreEdges.length
+  const tail = new Int32Array(m), head = new Int32Array(m)
+  for (let e = 0; e < m; e++) {
+    tail[e] = local.get(red.tail[red.coreEdges[e]!]!)!
+    head[e] = local.get(red.head[red.coreEdges[e]!]!)!
+  }
   if (m === 0) {
     return {kind: 'yes', method: 'reduced', rot: Array.from({length: k}, () => []), large: new Int32Array(k).fill(-1), outerVertex: -1, nodes: 0}
   }
@@ -177,10 +182,17 @@ function decideCore(red: Reduction, expired: () => boolean, preferWrittenOrder: 
     else if (outdeg[v] === 0) sinks.push(v)
     else mixed++
   }
-  const pairs = tail.map((t, e): [number, number] => [t, head[e]!])
+  const pairs: Array<[number, number]> = []
+  for (let e = 0; e < m; e++) pairs.push([tail[e]!, head[e]!])
   // an embedding of core plus extra edges (ids >= m) and extra vertices (ids >= k), restricted to core
   const tryEmbedding = (emb: RotationSystem) => {
-    const r = Array.from(emb.rotation.slice(0, k), (x) => Array.from(x).filter((e) => e < m))
+    // rows built by push, so they are always packed (see tail and head above)
+    const r: number[][] = []
+    for (let v = 0; v < k; v++) {
+      const row: number[] = []
+      for (const e of emb.rotation[v]!) if (e < m) row.push(e)
+      r.push(row)
+    }
     const angles = assignLargeAngles(r, tail, head)
     return angles === null ? null : {rot: r, angles}
   }
@@ -237,7 +249,7 @@ function decideCore(red: Reduction, expired: () => boolean, preferWrittenOrder: 
   let spent = 0
   let out: ReturnType<typeof searchUpwardEmbedding>
   const written = preferWrittenOrder ? writtenKeys(red) : undefined
-  const key = written && red.coreEdges.map((e) => written[e]!)
+  const key = written && Int32Array.from(red.coreEdges, (e) => written[e]!)
   for (let attempt = 0; ; attempt++) {
     let left = 1024 * 2 ** attempt
     const root = (attempt * 7919) % k
