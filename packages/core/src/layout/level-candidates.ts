@@ -21,6 +21,10 @@
  *    it. A greedy search (ours), capped by `maxTests`.
  * Each of these that passes the test is also tried with its rows evened out (balance-rows.ts: same
  * height, single vertices moved to narrower rows), as a further candidate when that passes too.
+ * 5. lifted: from G's longest-path layering, while the test answers "no", raise one vertex of the odd
+ *    cycle it returns by a level (its successors follow as far as needed), taking the raise that
+ *    passes, else the one with the fewest rows and then the shortest cycle; a greedy repair (ours),
+ *    capped by `maxTests`.
  * A "no" from the test only rules out that candidate; every level test is bounded by `maxWork`
  * (pairs set up) and `maxSteps` (witness search), all of them together by `workBudget` (pairs set
  * up), deterministic counts, and `undecided` counts as no.
@@ -29,12 +33,12 @@
  * layerings are linear, O(n + m) per relaxation step.
  */
 import {createDigraph, type Digraph} from '../graph/digraph.ts'
-import {testLevelPlanarity, type LevelItem, type LevelPlanarityOptions} from '../level/level-planarity.ts'
+import {testLevelPlanarity, type LevelItem, type LevelPlanarity, type LevelPlanarityOptions} from '../level/level-planarity.ts'
 import type {StAugmentation} from '../augment/index.ts'
 import {balanceRows} from './balance-rows.ts'
 import {layerByWeightedSpan, topologicalOrder} from './layering.ts'
 
-export type LevelCandidateKind = 'longest-path' | 'longest-path-down' | 'short-edges' | 'relaxed-augmentation'
+export type LevelCandidateKind = 'longest-path' | 'longest-path-down' | 'short-edges' | 'relaxed-augmentation' | 'lifted'
 
 export interface LevelCandidate {
   kind: LevelCandidateKind
@@ -96,11 +100,15 @@ export function levelCandidates(g: Digraph, st: StAugmentation, options: Readonl
   const ordersFor = (level: Int32Array, p: OrderPreference): LevelItem[][] | undefined => {
     const own = p.edgeRank ? ordersByRank(g, level, p.rank, p.edgeRank) : undefined
     if (own) return own
+    const r = probe(level, p)
+    return r?.status === 'planar' ? r.orders : undefined
+  }
+  /** The level test within what is left of the budget; undefined when it would go past it. */
+  const probe = (level: Int32Array, p: OrderPreference): LevelPlanarity | undefined => {
     const work = levelTestWork(g, level)
     if (work > budget) return undefined
     budget -= work
-    const r = testLevelPlanarity(g, level, limits(p))
-    return r.status === 'planar' ? r.orders : undefined
+    return testLevelPlanarity(g, level, limits(p))
   }
   const test = (level: Int32Array): LevelItem[][] | undefined => ordersFor(level, preferences[0]!)
   const found: Array<{kind: LevelCandidateKind; level: Int32Array; orders: LevelItem[][]; balanced: boolean}> = []
@@ -119,25 +127,34 @@ export function levelCandidates(g: Digraph, st: StAugmentation, options: Readonl
     seen.push(relaxed.level)
     found.push({kind: 'relaxed-augmentation', ...relaxed, balanced: false})
   }
-  const rows = options.rows
-  if (rows) {
-    for (const c of found.slice()) {
-      const level = balanceRows(g, c.level, rows.across, rows.nodeGap, rows.edgeGap)
-      if (level) add(c.kind, level, true)
-    }
-  }
-  // The same assignments with the orders of the other preferences, where they differ.
+  // Each assignment found also with its rows evened out, and all with the orders of the other
+  // preferences where they differ. The lifted assignment (the costliest search) comes last, with
+  // what is left of the budget, so it never crowds out the others.
   const out: LevelCandidate[] = []
-  for (const c of found) {
-    out.push({...c, preference: 0})
-    const keys = [ordersKey(c.orders)]
-    for (let p = 1; p < preferences.length; p++) {
-      const orders = ordersFor(c.level, preferences[p]!)
-      if (!orders || keys.includes(ordersKey(orders))) continue
-      keys.push(ordersKey(orders))
-      out.push({kind: c.kind, level: c.level, orders, balanced: c.balanced, preference: p})
+  const expand = (from: number): void => {
+    const rows = options.rows
+    if (rows) {
+      for (const c of found.slice(from)) {
+        const level = balanceRows(g, c.level, rows.across, rows.nodeGap, rows.edgeGap)
+        if (level) add(c.kind, level, true)
+      }
+    }
+    for (const c of found.slice(from)) {
+      out.push({...c, preference: 0})
+      const keys = [ordersKey(c.orders)]
+      for (let p = 1; p < preferences.length; p++) {
+        const orders = ordersFor(c.level, preferences[p]!)
+        if (!orders || keys.includes(ordersKey(orders))) continue
+        keys.push(ordersKey(orders))
+        out.push({kind: c.kind, level: c.level, orders, balanced: c.balanced, preference: p})
+      }
     }
   }
+  expand(0)
+  const done = found.length
+  const lifted = liftLevels(g, options.maxTests ?? 24, (level) => probe(level, preferences[0]!))
+  if (lifted) add('lifted', lifted, false)
+  expand(done)
   return out
 }
 
@@ -229,6 +246,52 @@ export function levelTestWork(g: Digraph, level: Int32Array): number {
     work += (k * (k - 1)) / 2 + (q * (q - 1)) / 2
   }
   return work
+}
+
+/** 5. above: lift vertices of the odd cycle until the test says planar; the levels, or undefined. */
+function liftLevels(g: Digraph, maxTests: number, probe: (level: Int32Array) => LevelPlanarity | undefined): Int32Array | undefined {
+  const n = g.vertexCount
+  const order = topologicalOrder(g)
+  // Raw levels: longest path from the sources with a floor per vertex; compressed for the test.
+  const raise = (floor: Int32Array): Int32Array => {
+    const raw = new Int32Array(n)
+    for (const v of order) {
+      raw[v] = floor[v]!
+      for (let i = g.inStart[v]!; i < g.inStart[v + 1]!; i++) raw[v] = Math.max(raw[v]!, raw[g.tail[g.inEdges[i]!]!]! + 1)
+    }
+    return raw
+  }
+  const height = (level: Int32Array): number => level.reduce((a, b) => Math.max(a, b + 1), 0)
+  let floor: Int32Array = new Int32Array(n)
+  let raw: Int32Array = raise(floor)
+  let result = probe(compress(raw, n))
+  let tests = 1
+  while (result?.status === 'not-planar' && tests < maxTests) {
+    const touched = new Set<number>()
+    for (const e of result.edges) {
+      touched.add(g.tail[e]!)
+      touched.add(g.head[e]!)
+    }
+    let best: {floor: Int32Array; raw: Int32Array; result: LevelPlanarity; score: number} | undefined
+    for (const v of [...touched].sort((a, b) => a - b)) {
+      if (tests >= maxTests) break
+      const f = floor.slice()
+      f[v] = raw[v]! + 1
+      const r = raise(f)
+      const level = compress(r, n)
+      const answer = probe(level)
+      tests++
+      if (!answer || answer.status === 'undecided') continue
+      const score = (answer.status === 'planar' ? 0 : 1e9) + height(level) * 1e5 + (answer.status === 'not-planar' ? answer.edges.length : 0)
+      if (!best || score < best.score) best = {floor: f, raw: r, result: answer, score}
+      if (answer.status === 'planar') break
+    }
+    if (!best) return undefined
+    floor = best.floor
+    raw = best.raw
+    result = best.result
+  }
+  return result?.status === 'planar' ? compress(raw, n) : undefined
 }
 
 /** Longest path from the sources: level(v) = length of the longest path ending at v. */
