@@ -14,6 +14,7 @@
  */
 import {dartFrom, traceFaces, type RotationSystem} from '../embedding/rotation-system.ts'
 import type {UpwardEmbedding} from '../upward/index.ts'
+import {int32Rows} from '../upward/int32-rows.ts'
 
 /** Out-edges of every vertex, left to right in a drawing with flow up (rotations are clockwise, y up). */
 export function outEdgesLeftToRight(up: UpwardEmbedding): number[][] {
@@ -71,7 +72,8 @@ function inversions(a: number[]): number {
 /** The mirror image: rotations reversed, each large angle renamed by the dart that names it there. */
 export function mirrorUpwardEmbedding(up: UpwardEmbedding): UpwardEmbedding {
   const g = up.embedding.graph
-  const rotation = up.embedding.rotation.map((r) => Int32Array.from(r).reverse())
+  const rotation = int32Rows(up.embedding.rotation, (r) => r)
+  for (const r of rotation) r.reverse()
   const embedding: RotationSystem = {graph: g, rotation}
   const faces = traceFaces(embedding)
   const largeAngle = new Int32Array(g.vertexCount).fill(-1)

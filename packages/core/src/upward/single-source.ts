@@ -31,6 +31,7 @@ import {testPlanarity} from '../planarity/test-planarity.ts'
 import {dartHead, nextDarts, traceFaces, type Faces, type RotationSystem} from '../embedding/rotation-system.ts'
 import {isBimodal} from './bimodal.ts'
 import {testUpwardEmbedded} from './fixed-embedding.ts'
+import {int32Rows} from './int32-rows.ts'
 
 /** The source of g when g is acyclic with exactly one source and every vertex has an edge, else -1. */
 export function singleSourceOf(g: Digraph): number {
@@ -165,7 +166,10 @@ function rotationOrNull(g: Digraph, expired: () => boolean): number[][] | null {
     if (r === undefined) continue
     const c = x.outCopy[v]!
     if (c === -1) {
-      rotation[v] = r
+      // a copy built by push: r may be holey, and assignLargeAngles, fed holey and packed rows, deoptimized
+      const row: number[] = []
+      for (const e of r) row.push(e)
+      rotation[v] = row
       continue
     }
     const rc = xRot.get(c)!
@@ -320,7 +324,7 @@ function embedBlock(edges: ReadonlyArray<readonly [number, number]>, expired: ()
     if (comp.kind !== 'R') continue
     const planar = testPlanarity(sk)
     if (!planar.planar) return null
-    info.rotation = planar.embedding.rotation.map((r) => Int32Array.from(r))
+    info.rotation = int32Rows(planar.embedding.rotation, (r) => r)
     const emb = {graph: sk, rotation: info.rotation}
     const faces = traceFaces(emb)
     const possible = possibleOuterFaces(emb, faces)
@@ -545,7 +549,7 @@ function assemble(
     verts.push(v)
   }
   const bg = createDigraph(verts.length, edges.map(([a, b]) => [local.get(a)!, local.get(b)!] as [number, number]))
-  const emb = {graph: bg, rotation: verts.map((v) => Int32Array.from(rot.get(v)!))}
+  const emb = {graph: bg, rotation: int32Rows(verts, (v) => rot.get(v)!)}
   const faces = traceFaces(emb)
   const res = testUpwardEmbedded(emb, {outerFace: faces.faceOfDart[rootOuterDart]!})
   if (!res.ok) throw new Error(`internal: assembled block embedding is not upward (${res.reason})`)
@@ -585,7 +589,8 @@ function outerBeside(sk: Digraph, base: Int32Array[], want: Side | null, refDart
   }
   if (chosen === null || res0 === null) throw new Error(`internal: no outer face beside the reference edge of an ${kind}-skeleton`)
   const mirror = want !== null && chosen !== want
-  const rotation = mirror ? base.map((x) => Int32Array.from(x).reverse()) : base
+  const rotation = mirror ? int32Rows(base, (x) => x) : base
+  if (mirror) for (const r of rotation) r.reverse()
   const side: Side = mirror ? want! : chosen
   const emb = {graph: sk, rotation}
   // unmirrored: the successful try above already is this test (same embedding, same outer face)
@@ -610,7 +615,7 @@ function simpleRotation(kind: 'S' | 'P' | 'R', info: SkeletonInfo, ref: number):
     at[a]!.push(j)
     at[b]!.push(j)
   })
-  if (kind === 'S') return at.map((x) => Int32Array.from(x))
+  if (kind === 'S') return int32Rows(at, (x) => x)
   // P: poles x (lower: tail of a directed edge, if any) and y. Around x: the reference edge if it
   // is a peak, the other peaks, the directed edges, the reference edge if directed; reversed at y.
   // A peak between two directed edges would have no angle for its large one.
@@ -634,7 +639,7 @@ function simpleRotation(kind: 'S' | 'P' | 'R', info: SkeletonInfo, ref: number):
     if (sd.kind !== 'peak') return sd.j1
     return info.st[sd.j1]![0] === pole ? sd.j1 : sd.j2
   }
-  const rot = at.map((l) => Int32Array.from(l))
+  const rot = int32Rows(at, (l) => l)
   rot[x] = Int32Array.from(seq.map((i) => stAt(i, x)))
   rot[y] = Int32Array.from(seq.map((i) => stAt(i, y)).reverse())
   return rot

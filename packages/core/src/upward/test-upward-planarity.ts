@@ -42,6 +42,7 @@ import {searchUpwardEmbedding} from './embedding-search.ts'
 import {testUpwardEmbedded} from './fixed-embedding.ts'
 import {expansionGraph, upwardRotationSingleSource} from './single-source.ts'
 import type {UpwardEmbedding} from './upward-embedding.ts'
+import {int32Rows} from './int32-rows.ts'
 
 export interface UpwardBudget {
   /** Wall-clock limit for one test, in milliseconds. Default 3000. */
@@ -133,7 +134,7 @@ export function testUpwardPlanarity(g: Digraph, budget?: Readonly<UpwardBudget>)
     if (firstOuter === -1 && g.edgeCount > 0 && comp.some((v) => rot[v]!.length > 0)) firstOuter = emb.outerVertex
   }
 
-  const rotation: Int32Array[] = rot.map((r) => Int32Array.from(r))
+  const rotation = int32Rows(rot, (r) => r)
   const embedding: RotationSystem = {graph: g, rotation}
   let outerFace: number | null = null
   if (firstOuter !== -1) {
