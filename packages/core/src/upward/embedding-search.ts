@@ -49,6 +49,17 @@ interface Fragment {
 
 const outOfTime = Symbol('budget')
 
+/**
+ * A copy built by push, so always a packed array of small integers: the face lists here come from
+ * push, slice and filter, whose results are packed or holey depending on the tier running them, and
+ * the `allowed` test inlined into assignLargeAngles deoptimized ("wrong map") on each new kind.
+ */
+function packedCopy(a: readonly number[]): number[] {
+  const out: number[] = []
+  for (let i = 0; i < a.length; i++) out.push(a[i]!)
+  return out
+}
+
 export function searchUpwardEmbedding(
   n: number,
   tail: ArrayLike<number>,
@@ -106,7 +117,10 @@ export function searchUpwardEmbedding(
         faces++
       }
     }
-    return {faceAt: rot.map((r, v) => Int32Array.from(r, (e) => faceOf[dartFrom(e, v) ^ 1]!)), faces}
+    // built by push, not Array#map, so its elements kind does not depend on the tier (see packedCopy)
+    const faceAt: Int32Array[] = []
+    for (let v = 0; v < n; v++) faceAt.push(Int32Array.from(rot[v]!, (e) => faceOf[dartFrom(e, v) ^ 1]!))
+    return {faceAt, faces}
   }
 
   const fragments = (): Fragment[] => {
@@ -200,8 +214,13 @@ export function searchUpwardEmbedding(
     return score
   }
   /** Corner indices (or pairs) sorted best first by `score`; a stable sort keeps the plain order on ties. */
-  const bestFirst = <T>(list: T[], score: (x: T) => number): T[] =>
-    key === undefined ? list : list.map((x) => [x, score(x)] as const).sort((p, q) => q[1] - p[1]).map((p) => p[0])
+  const bestFirst = <T>(list: T[], score: (x: T) => number): T[] => {
+    if (key === undefined) return list
+    const scored = list.map((x) => [x, score(x)] as const).sort((p, q) => q[1] - p[1])
+    const out: T[] = [] // by push: the loops over it saw holey and packed Array#map results
+    for (const p of scored) out.push(p[0])
+    return out
+  }
 
   let assignmentPruned = false
   const bimodal = (touched: number[]): boolean => {
@@ -260,7 +279,7 @@ export function searchUpwardEmbedding(
         const outs = r.reduce((c, e) => c + (tail[e] === v ? 1 : 0), 0)
         if (!((outs === 0 && dirs & 1) || (outs === r.length && dirs & 2))) continue
         const before = allowedFaces.get(v)
-        allowedFaces.set(v, before === undefined ? list : before.filter((f) => list.includes(f)))
+        allowedFaces.set(v, packedCopy(before === undefined ? list : before.filter((f) => list.includes(f))))
       }
     }
     if (goal === 'upward' && faces > 0) {
@@ -308,7 +327,9 @@ export function searchUpwardEmbedding(
     const good = new Uint8Array(faces)
     for (const f of bestFaces) good[f] = 1
     if (!ear) {
-      const corners = bestFirst([...fa.keys()].filter((i) => good[fa[i]!]), (i) => agrees(a, i, first))
+      const open: number[] = []
+      for (let i = 0; i < fa.length; i++) if (good[fa[i]!]) open.push(i)
+      const corners = bestFirst(open, (i) => agrees(a, i, first))
       for (const i of corners) {
         ra.splice(i + 1, 0, first)
         const ok = attempt()

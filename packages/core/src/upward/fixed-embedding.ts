@@ -102,7 +102,8 @@ export function testUpwardEmbedded(
     while (facesOf.length <= c) facesOf.push([])
     facesOf[c]!.push(f)
   }
-  const verticesOf: number[][] = facesOf.map(() => [])
+  const verticesOf: number[][] = [] // by push: an Array#map result is holey or packed by tier
+  for (let c = 0; c < facesOf.length; c++) verticesOf.push([])
   for (let v = 0; v < n; v++) if (component[v]! >= 0) verticesOf[component[v]!]!.push(v)
 
   const assignedFace = new Int32Array(n).fill(-1)

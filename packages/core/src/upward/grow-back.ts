@@ -97,7 +97,8 @@ export function growBack(red: Reduction, emb: AngleEmbedding): void {
 
 /** Written order of every working edge: its own id, or for a merged edge that of its first piece. */
 export function writtenKeys(red: Reduction): number[] {
-  const key = red.tail.map((_, e) => e)
+  const key: number[] = [] // by push: an Array#map result is holey or packed by tier
+  for (let e = 0; e < red.tail.length; e++) key.push(e)
   for (const s of red.steps) if (s.kind === 'subdivide') key[s.merged] = key[s.inEdge]!
   return key
 }

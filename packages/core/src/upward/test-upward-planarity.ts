@@ -214,7 +214,10 @@ function decideCore(red: Reduction, expired: () => boolean, preferWrittenOrder: 
       // after every sink, and S -> T make an st-digraph; if that is planar it is upward planar, and
       // so is the core inside it (sufficient only, so a failure falls through to the search).
       const S = k, T = k + 1
-      const ends: Array<[number, number]> = [...sources.map((v): [number, number] => [S, v]), ...sinks.map((v): [number, number] => [v, T]), [S, T]]
+      const ends: Array<[number, number]> = []
+      for (const v of sources) ends.push([S, v])
+      for (const v of sinks) ends.push([v, T])
+      ends.push([S, T])
       // A yes/no test first: when it is not planar the Kuratowski subgraph testPlanarity would extract
       // (superlinear, kuratowski.ts) is never used.
       if (expired()) return {kind: 'budget', nodes: 0}
