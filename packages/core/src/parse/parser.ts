@@ -154,7 +154,14 @@ export function parseDiagram(text: string, settings: Readonly<ParseSettings> = {
   function apply(statement: Statement): void {
     if (edgeLimitReached) return
     if (statement.kind === 'tier') return applyTier(statement)
-    const groups = statement.groups.map((group) => group.map((item) => ({item, vertex: vertexFor(item)})))
+    // built by push, not Array#map, whose result is holey or packed depending on the tier running it
+    // (apply deoptimized on "wrong map" when it met the other kind)
+    const groups: Array<Array<{item: Item; vertex: number}>> = []
+    for (const group of statement.groups) {
+      const placed: (typeof groups)[number] = []
+      for (const item of group) placed.push({item, vertex: vertexFor(item)})
+      groups.push(placed)
+    }
     for (let g = 0; g + 1 < groups.length; g++) {
       const arrow = statement.arrows[g]!
       const label = statement.arrowLabels[g]
