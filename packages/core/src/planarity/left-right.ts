@@ -69,11 +69,14 @@ function run(inc: Incidence, embed: boolean): SimpleRotation | null {
   // end; see incidence.ts) are only read.
 
   // ---- Phase 1: orientation ----------------------------------------------------------------------
-  // What phase 1 learns about an edge goes to a record of 4 ints in `block`, laid out by DFS preorder:
+  // What phase 1 learns about an edge goes to a record of R ints in `block`, laid out by DFS preorder:
   // the vertex discovered p-th owns records blockStart[p] .. blockStart[p+1), one per incidence slot in
-  // slot order. Record b of an edge oriented away from that vertex holds block[4b] the other end's
-  // preorder number, block[4b+1] its lowpoint, block[4b+2] its nesting depth, block[4b+3] the
-  // half-edge; block[4b] is NONE for any other slot. The records are written near the DFS frontier,
+  // slot order. Record b of an edge oriented away from that vertex holds block[Rb] the other end's
+  // preorder number, block[Rb+1] its nesting depth, 2 lowpoint + (1 if chordal), so the lowpoint is
+  // nesting >> 1, and, for an embedding, block[Rb+2] the edge end's label; block[Rb] is NONE for any
+  // other slot. (At 10^6 edges the decision alone writes and rereads 16 MB of records instead of 32:
+  // bench/README.md, "Planarity". Finding the label later in the slot instead costs a scattered read
+  // per vertex, which was slower than the larger records.) The records are written near the DFS frontier,
   // so the renumbering below reads them in order, and only written: the lowpoints of a tree edge,
   // while its subtree is open, are kept on the stack (the path, in cache), so that coming back to a
   // vertex after a large subtree does not wait on reading its record.
@@ -82,7 +85,8 @@ function run(inc: Incidence, embed: boolean): SimpleRotation | null {
   // by height: vertex, scan slot, end slot, slot-to-record offset, the record of its parent edge and
   // that edge's lowpoint and second lowpoint so far.
   const vert = new Int32Array(2 * n).fill(NONE)
-  const block = new Int32Array(4 * 2 * m)
+  const R = embed ? 3 : 2
+  const block = new Int32Array(4 * 2 * m) // phase 1 fills 2Rm ints; phases 2 and 3 reuse all 8m
   const blockStart = new Int32Array(n + 1)
   // By preorder number, written as vertices are discovered (in order).
   const vertexOf = new Int32Array(n) // internal label -> input label
@@ -140,14 +144,14 @@ function run(inc: Incidence, embed: boolean): SimpleRotation | null {
         const w = slot[2 * s + 1]!
         const hw = vert[2 * w]!
         const b = s + stOffset[t]!
-        if (hw !== NONE && hw >= t - 1) { block[4 * b] = NONE; continue }
-        block[4 * b + 3] = slot[2 * s]!
+        if (hw !== NONE && hw >= t - 1) { block[R * b] = NONE; continue }
+        if (embed) block[R * b + 2] = slot[2 * s]!
         if (hw === NONE) {
-          block[4 * b] = preCount
+          block[R * b] = preCount
           discover(w, ++t, b)
         } else {
           // A back edge: lowpoint hw, second lowpoint t (its source), so nesting depth 2 hw.
-          block[4 * b] = vert[2 * w + 1]!; block[4 * b + 1] = hw; block[4 * b + 2] = 2 * hw
+          block[R * b] = vert[2 * w + 1]!; block[R * b + 1] = 2 * hw
           if (t > 0) mergeLow(t, hw, t)
         }
       } else {
@@ -157,7 +161,7 @@ function run(inc: Incidence, embed: boolean): SimpleRotation | null {
         const pb = stParent[t]!
         t--
         if (pb === NONE) continue
-        block[4 * pb + 1] = lp; block[4 * pb + 2] = 2 * lp + (lp2 < t ? 1 : 0)
+        block[R * pb + 1] = 2 * lp + (lp2 < t ? 1 : 0)
         if (t > 0) mergeLow(t, lp, lp2)
       }
     }
@@ -179,7 +183,7 @@ function run(inc: Incidence, embed: boolean): SimpleRotation | null {
   const dst = new Int32Array(m)
   const lowpt = new Int32Array(m)
   const nesting = new Int32Array(m)
-  const half = new Int32Array(m) // the label of the edge end at src (see incidence.ts)
+  const half = new Int32Array(embed ? m : 0) // the label of the edge end at src (see incidence.ts)
   const parentEdge = new Int32Array(n).fill(NONE)
   const outStart = new Int32Array(n + 1)
   let maxDegree = 0
@@ -192,13 +196,14 @@ function run(inc: Incidence, embed: boolean): SimpleRotation | null {
       outStart[pv] = c
       let len = 0
       for (let b = blockStart[pv]!; b < blockStart[pv + 1]!; b++) {
-        if (block[4 * b] !== NONE) { key[len] = block[4 * b + 2]!; at[len++] = b }
+        if (block[R * b] !== NONE) { key[len] = block[R * b + 1]!; at[len++] = b }
       }
       sorter.sort(key, at, len)
       for (let j = 0; j < len; j++) {
         const b = at[j]!
-        const pw = block[4 * b]!
-        src[c] = pv; dst[c] = pw; lowpt[c] = block[4 * b + 1]!; nesting[c] = key[j]!; half[c] = block[4 * b + 3]!
+        const pw = block[R * b]!
+        src[c] = pv; dst[c] = pw; lowpt[c] = key[j]! >> 1; nesting[c] = key[j]!
+        if (embed) half[c] = block[R * b + 2]!
         if (pw > pv) parentEdge[pw] = c // out-edges to later preorder numbers are tree edges
         c++
       }
