@@ -23,7 +23,12 @@ describe('incidence lists straight from a digraph', () => {
       expect(direct).not.toBeNull()
       const viaSimple = incidenceOfSimple(s.simple, s.original)
       expect(Array.from(direct!.adjStart)).toEqual(Array.from(viaSimple.adjStart))
-      expect(Array.from(direct!.slot)).toEqual(Array.from(viaSimple.slot))
+      expect(Array.from(direct!.other)).toEqual(Array.from(viaSimple.other))
+      expect(Array.from(direct!.label)).toEqual(Array.from(viaSimple.label))
+      // Without labels (the decision): the same other ends, no labels.
+      const bare = incidenceOfDigraph(g, false)
+      expect(Array.from(bare!.other)).toEqual(Array.from(viaSimple.other))
+      expect(bare!.label.length).toBe(0)
       expect(isPlanar(g)).toBe(testPlanarity(g).planar)
     }
   })

@@ -1,8 +1,9 @@
 /**
  * Undirected incidence lists (CSR) for the left-right test, built straight from its input.
  *
- * Slot s of vertex v (adjStart[v] <= s < adjStart[v+1]) holds slot[2s] a label of the edge end and
- * slot[2s+1] the other end. A vertex's slots are in the order of the simple graph's edge ids, which
+ * Slot s of vertex v (adjStart[v] <= s < adjStart[v+1]) holds other[s] the other end and label[s] a
+ * label of the edge end; the labels may be left out (the decision needs none), which halves what the
+ * build writes and keeps the other ends, all the DFS reads, in 8 bytes per edge. A vertex's slots are in the order of the simple graph's edge ids, which
  * is what fixes the DFS, the tie order of the nesting sort and so the rotation: both builders below
  * give the same slots for the same graph.
  *
@@ -24,7 +25,9 @@ export interface Incidence {
   readonly vertexCount: number
   readonly edgeCount: number
   readonly adjStart: Int32Array
-  readonly slot: Int32Array
+  readonly other: Int32Array
+  /** Empty when the lists were built without labels. */
+  readonly label: Int32Array
   /**
    * True: an edge's label is the same at both ends (an edge id of the caller's). False: half-edges,
    * 2e at the end a[e] and 2e+1 at b[e] of simple edge e.
@@ -39,15 +42,16 @@ export function incidenceOfSimple(g: SimpleGraph, ids?: Int32Array): Incidence {
   const adjStart = new Int32Array(n + 1)
   for (let e = 0; e < m; e++) { adjStart[g.a[e]! + 1]!++; adjStart[g.b[e]! + 1]!++ }
   for (let v = 0; v < n; v++) adjStart[v + 1]! += adjStart[v]!
-  const slot = new Int32Array(4 * m)
+  const other = new Int32Array(2 * m)
+  const label = new Int32Array(2 * m)
   const fill = adjStart.slice(0, n)
   for (let e = 0; e < m; e++) {
     const x = g.a[e]!, y = g.b[e]!
-    const s = 2 * fill[x]!++, t = 2 * fill[y]!++
-    slot[s] = ids === undefined ? 2 * e : ids[e]!; slot[s + 1] = y
-    slot[t] = ids === undefined ? 2 * e + 1 : ids[e]!; slot[t + 1] = x
+    const s = fill[x]!++, t = fill[y]!++
+    label[s] = ids === undefined ? 2 * e : ids[e]!; other[s] = y
+    label[t] = ids === undefined ? 2 * e + 1 : ids[e]!; other[t] = x
   }
-  return {vertexCount: n, edgeCount: m, adjStart, slot, labelsAreIds: ids !== undefined}
+  return {vertexCount: n, edgeCount: m, adjStart, other, label, labelsAreIds: ids !== undefined}
 }
 
 /**
@@ -60,7 +64,7 @@ export function incidenceOfSimple(g: SimpleGraph, ids?: Int32Array): Incidence {
  * from smaller vertices were all appended by earlier sweeps, before its own. The sweep reads each
  * edge's other end at a scattered place, but no read waits on another, so their misses overlap.
  */
-export function incidenceOfDigraph(g: Digraph): Incidence | null {
+export function incidenceOfDigraph(g: Digraph, withLabels = true): Incidence | null {
   const n = g.vertexCount
   const m = g.edgeCount
   const {outStart, outEdges, inStart, inEdges, head, tail} = g
@@ -71,26 +75,27 @@ export function incidenceOfDigraph(g: Digraph): Incidence | null {
     adjStart[v + 1] = adjStart[v]! + d
     if (d > maxDegree) maxDegree = d
   }
-  const slot = new Int32Array(4 * m)
+  const other = new Int32Array(2 * m)
+  const label = new Int32Array(withLabels ? 2 * m : 0)
   const fill = adjStart.slice(0, n)
   // Each vertex's edges and other ends are first copied into a short local list by a loop that does
   // not branch on what it reads, so the scattered reads of head[e] and tail[e] are all in flight at
   // once; the loop that branches on them (which end is smaller, repeats) then reads the local list.
   const edge = new Int32Array(maxDegree)
-  const other = new Int32Array(maxDegree)
+  const ends = new Int32Array(maxDegree)
   // Repeated pairs: as in simplify, a vertex of small degree looks through its own short list (in
   // cache), a larger one marks its neighbours in a stamp array; O(NEAR) per edge end either way.
   let stamp: Int32Array | null = null
   for (let u = 0; u < n; u++) {
     const o0 = outStart[u]!, o1 = outStart[u + 1]!, i0 = inStart[u]!, i1 = inStart[u + 1]!
     let d = 0
-    for (let i = o0; i < o1; i++) { const e = outEdges[i]!; edge[d] = e; other[d++] = head[e]! }
-    for (let i = i0; i < i1; i++) { const e = inEdges[i]!; edge[d] = e; other[d++] = tail[e]! }
+    for (let i = o0; i < o1; i++) { const e = outEdges[i]!; edge[d] = e; ends[d++] = head[e]! }
+    for (let i = i0; i < i1; i++) { const e = inEdges[i]!; edge[d] = e; ends[d++] = tail[e]! }
     const big = d > NEAR
     if (big && stamp === null) stamp = new Int32Array(n).fill(-1)
-    let taken = 0 // other[0 .. taken) are the larger ends met so far, when not big
+    let taken = 0 // ends[0 .. taken) are the larger ends met so far, when not big
     for (let j = 0; j < d; j++) {
-      const w = other[j]!
+      const w = ends[j]!
       if (w <= u) {
         if (w === u) return null // a loop
         continue
@@ -99,16 +104,15 @@ export function incidenceOfDigraph(g: Digraph): Incidence | null {
         if (stamp![w] === u) return null
         stamp![w] = u
       } else {
-        for (let k = 0; k < taken; k++) if (other[k] === w) return null
-        other[taken++] = w
+        for (let k = 0; k < taken; k++) if (ends[k] === w) return null
+        ends[taken++] = w
       }
-      const e = edge[j]!
-      const s = 2 * fill[u]!++, t = 2 * fill[w]!++
-      slot[s] = e; slot[s + 1] = w
-      slot[t] = e; slot[t + 1] = u
+      const s = fill[u]!++, t = fill[w]!++
+      other[s] = w; other[t] = u
+      if (withLabels) { label[s] = edge[j]!; label[t] = edge[j]! }
     }
   }
-  return {vertexCount: n, edgeCount: m, adjStart, slot, labelsAreIds: true}
+  return {vertexCount: n, edgeCount: m, adjStart, other, label, labelsAreIds: true}
 }
 
 const NEAR = 16

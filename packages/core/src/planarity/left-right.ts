@@ -55,7 +55,8 @@ export function embedIncidence(inc: Incidence): SimpleRotation | null {
 function run(inc: Incidence, embed: boolean): SimpleRotation | null {
   const n = inc.vertexCount
   const m = inc.edgeCount
-  const {adjStart, slot} = inc
+  const {adjStart, other, label} = inc
+  if (embed && label.length !== 2 * m) throw new RangeError('embedding needs incidence lists with labels')
   // Euler's bound for simple planar graphs: m <= 3n - 6 when n >= 3 (counting only non-isolated vertices).
   if (m > 2) {
     let used = 0
@@ -141,11 +142,11 @@ function run(inc: Incidence, embed: boolean): SimpleRotation | null {
         // Which edges are new here: the graph is simple and every non-tree edge joins an ancestor and
         // a descendant, so w unvisited means a tree edge, w two or more levels up a back edge, and
         // anything else (the parent, or a finished descendant) was oriented from w's side already.
-        const w = slot[2 * s + 1]!
+        const w = other[s]!
         const hw = vert[2 * w]!
         const b = s + stOffset[t]!
         if (hw !== NONE && hw >= t - 1) { block[R * b] = NONE; continue }
-        if (embed) block[R * b + 2] = slot[2 * s]!
+        if (embed) block[R * b + 2] = label[s]!
         if (hw === NONE) {
           block[R * b] = preCount
           discover(w, ++t, b)

@@ -35,7 +35,7 @@ export function testPlanarity(g: Digraph): PlanarityResult {
 
 /** Is g's underlying graph planar? The decision alone (no embedding, no certificate). O(n + m). */
 export function isPlanar(g: Digraph): boolean {
-  const inc = incidenceOfDigraph(g)
+  const inc = incidenceOfDigraph(g, false) // the decision reads no labels
   return inc !== null ? isPlanarIncidence(inc) : isPlanarSimple(simplify(g).simple)
 }
 
