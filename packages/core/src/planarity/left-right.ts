@@ -87,7 +87,10 @@ function run(inc: Incidence, embed: boolean): SimpleRotation | null {
   // that edge's lowpoint and second lowpoint so far.
   const vert = new Int32Array(2 * n).fill(NONE)
   const R = embed ? 3 : 2
-  const block = new Int32Array(4 * 2 * m) // phase 1 fills 2Rm ints; phases 2 and 3 reuse all 8m
+  // Phase 1 fills 2Rm ints; phase 2 reuses 3m, phase 3 8m. Sized for what the call uses: V8 gets
+  // typed arrays zeroed (fresh pages faulted in, or reused heap memory cleared), so every allocated
+  // int costs time at 10^6 edges whether or not it is touched (bench/README.md, "Planarity").
+  const block = new Int32Array((embed ? 8 : 4) * m)
   const blockStart = new Int32Array(n + 1)
   // By preorder number, written as vertices are discovered (in order).
   const vertexOf = new Int32Array(n) // internal label -> input label
@@ -180,9 +183,10 @@ function run(inc: Incidence, embed: boolean): SimpleRotation | null {
   // short local sort, see LocalSorter) and every array here is read and written in order. (Before,
   // a global counting sort by nesting depth and a gather through the permutation cost two scattered
   // passes more.)
-  const src = new Int32Array(m) // oriented edge src -> dst, new labels from here on
+  // Oriented edge c (new labels from here on) goes to dst[c] with nesting depth nesting[c], so its
+  // lowpoint is nesting[c] >> 1. Its source is not kept: phases 2 and 3 find it on their stack. (Each
+  // m-sized array is zeroed when allocated, which costs time at 10^6 edges; see block above.)
   const dst = new Int32Array(m)
-  const lowpt = new Int32Array(m)
   const nesting = new Int32Array(m)
   const half = new Int32Array(embed ? m : 0) // the label of the edge end at src (see incidence.ts)
   const parentEdge = new Int32Array(n).fill(NONE)
@@ -203,7 +207,7 @@ function run(inc: Incidence, embed: boolean): SimpleRotation | null {
       for (let j = 0; j < len; j++) {
         const b = at[j]!
         const pw = block[R * b]!
-        src[c] = pv; dst[c] = pw; lowpt[c] = key[j]! >> 1; nesting[c] = key[j]!
+        dst[c] = pw; nesting[c] = key[j]!
         if (embed) half[c] = block[R * b + 2]!
         if (pw > pv) parentEdge[pw] = c // out-edges to later preorder numbers are tree edges
         c++
@@ -218,7 +222,7 @@ function run(inc: Incidence, embed: boolean): SimpleRotation | null {
   // The records are spent after the renumbering: reuse them (fewer large allocations, each of which
   // costs page faults and garbage-collector pressure at 10^6 edges).
   const ref = block.subarray(0, m).fill(NONE)
-  const side = new Int8Array(m).fill(1)
+  const side = new Int8Array(embed ? m : 0).fill(1) // only an embedding needs sides
   const lowptEdge = block.subarray(m, 2 * m)
   const stackBottom = block.subarray(2 * m, 3 * m)
   const lLow = new Int32Array(m + 1)
@@ -228,9 +232,9 @@ function run(inc: Incidence, embed: boolean): SimpleRotation | null {
   let top = 0 // number of conflict pairs on the stack
 
   const lowest = (i: number): number => {
-    if (lLow[i] === NONE && lHigh[i] === NONE) return lowpt[rLow[i]!]!
-    if (rLow[i] === NONE && rHigh[i] === NONE) return lowpt[lLow[i]!]!
-    return Math.min(lowpt[lLow[i]!]!, lowpt[rLow[i]!]!)
+    if (lLow[i] === NONE && lHigh[i] === NONE) return nesting[rLow[i]!]! >> 1
+    if (rLow[i] === NONE && rHigh[i] === NONE) return nesting[lLow[i]!]! >> 1
+    return Math.min((nesting[lLow[i]!]! >> 1), (nesting[rLow[i]!]! >> 1))
   }
 
   // Constraints that the return edges of ei (a later out-edge of v) impose against those of earlier
@@ -246,7 +250,7 @@ function run(inc: Incidence, embed: boolean): SimpleRotation | null {
         t = qLH; qLH = qRH; qRH = t
       }
       if (qLL !== NONE || qLH !== NONE) return false
-      if (lowpt[qRL]! > lowpt[e]!) { // merge intervals
+      if ((nesting[qRL]! >> 1) > (nesting[e]! >> 1)) { // merge intervals
         if (pRL === NONE && pRH === NONE) pRH = qRH
         else ref[pRL] = qRH
         pRL = qRL
@@ -257,8 +261,8 @@ function run(inc: Incidence, embed: boolean): SimpleRotation | null {
     // Merge the conflicting return edges of earlier out-edges into P.L.
     while (top > 0) {
       const i = top - 1
-      const lConf = lHigh[i] !== NONE && lowpt[lHigh[i]!]! > lowpt[ei]!
-      const rConf = rHigh[i] !== NONE && lowpt[rHigh[i]!]! > lowpt[ei]!
+      const lConf = lHigh[i] !== NONE && (nesting[lHigh[i]!]! >> 1) > (nesting[ei]! >> 1)
+      const rConf = rHigh[i] !== NONE && (nesting[rHigh[i]!]! >> 1) > (nesting[ei]! >> 1)
       if (!lConf && !rConf) break
       top--
       let qLL = lLow[i]!, qLH = lHigh[i]!, qRL = rLow[i]!, qRH = rHigh[i]!
@@ -266,7 +270,7 @@ function run(inc: Incidence, embed: boolean): SimpleRotation | null {
         let t = qLL; qLL = qRL; qRL = t
         t = qLH; qLH = qRH; qRH = t
       }
-      if (qRH !== NONE && lowpt[qRH]! > lowpt[ei]!) return false
+      if (qRH !== NONE && (nesting[qRH]! >> 1) > (nesting[ei]! >> 1)) return false
       // The interval below lowpt(ei) joins P.R.
       if (pRL !== NONE) ref[pRL] = qRH
       if (qRL !== NONE) pRL = qRL
@@ -286,27 +290,27 @@ function run(inc: Incidence, embed: boolean): SimpleRotation | null {
     const hu = height[u]!
     while (top > 0 && lowest(top - 1) === hu) {
       top--
-      if (lLow[top] !== NONE) side[lLow[top]!] = -1
+      if (embed && lLow[top] !== NONE) side[lLow[top]!] = -1
     }
     if (top === 0) return
     const i = top - 1
     while (lHigh[i] !== NONE && dst[lHigh[i]!] === u) lHigh[i] = ref[lHigh[i]!]!
     if (lHigh[i] === NONE && lLow[i] !== NONE) { // just emptied
       ref[lLow[i]!] = rLow[i]!
-      side[lLow[i]!] = -1
+      if (embed) side[lLow[i]!] = -1
       lLow[i] = NONE
     }
     while (rHigh[i] !== NONE && dst[rHigh[i]!] === u) rHigh[i] = ref[rHigh[i]!]!
     if (rHigh[i] === NONE && rLow[i] !== NONE) {
       ref[rLow[i]!] = lLow[i]!
-      side[rLow[i]!] = -1
+      if (embed) side[rLow[i]!] = -1
       rLow[i] = NONE
     }
   }
 
   // Integrate the return edges of out-edge ei of v (after ei's subtree, if any, is done).
   const integrate = (v: number, ei: number, first: boolean): boolean => {
-    if (lowpt[ei]! < height[v]!) {
+    if ((nesting[ei]! >> 1) < height[v]!) {
       const e = parentEdge[v]!
       if (first) lowptEdge[e] = lowptEdge[ei]!
       else if (!addConstraints(ei, e)) return false
@@ -334,12 +338,12 @@ function run(inc: Incidence, embed: boolean): SimpleRotation | null {
         sp--
         const e = parentEdge[v]!
         if (e === NONE) continue
-        const u = src[e]!
+        const u = vstack[sp - 1]! // e's source, v's parent on the path
         trimBackEdges(u)
         // The side of e is the side of a highest return edge.
-        if (lowpt[e]! < height[u]!) {
+        if ((nesting[e]! >> 1) < height[u]!) {
           const hL = lHigh[top - 1]!, hR = rHigh[top - 1]!
-          ref[e] = hL !== NONE && (hR === NONE || lowpt[hL]! > lowpt[hR]!) ? hL : hR
+          ref[e] = hL !== NONE && (hR === NONE || (nesting[hL]! >> 1) > (nesting[hR]! >> 1)) ? hL : hR
         }
         if (!integrate(u, e, idx[u] === outStart[u])) return null
         idx[u]!++
@@ -372,7 +376,7 @@ function run(inc: Incidence, embed: boolean): SimpleRotation | null {
     for (let j = 0; j < len; j++) out[i0 + j] = at[j]!
   }
 
-  // Cyclic doubly linked lists of half-edges around each vertex. Half-edge 2e sits at src[e],
+  // Cyclic doubly linked lists of half-edges around each vertex. Half-edge 2e sits at e's source,
   // 2e+1 at dst[e]. "next" is the clockwise successor.
   const next = block.subarray(3 * m, 5 * m) // spent since the renumbering
   const prev = block.subarray(5 * m, 7 * m)
@@ -421,7 +425,7 @@ function run(inc: Incidence, embed: boolean): SimpleRotation | null {
   }
 
   // Output in the input's labels: internal vertex pv is vertexOf[pv]; internal half-edge 2i sits at
-  // src[i] and is reported by its slot label there (half[i]); its twin at dst[i] by the same label
+  // i's source and is reported by its slot label there (half[i]); its twin at dst[i] by the same label
   // when labels are edge ids, else by the twin half-edge half[i] ^ 1. Walked in internal vertex order
   // (the lists read nearly in order) and written to the input vertex's range: scattered writes are
   // cheap, scattered dependent reads are not.
