@@ -225,10 +225,13 @@ function run(inc: Incidence, embed: boolean): SimpleRotation | null {
   const side = new Int8Array(embed ? m : 0).fill(1) // only an embedding needs sides
   const lowptEdge = block.subarray(m, 2 * m)
   const stackBottom = block.subarray(2 * m, 3 * m)
-  const lLow = new Int32Array(m + 1)
-  const lHigh = new Int32Array(m + 1)
-  const rLow = new Int32Array(m + 1)
-  const rHigh = new Int32Array(m + 1)
+  // Conflict pairs on the stack: one pushed per return (back) edge, and merging pushes at most one
+  // after popping at least one, so there are never more than the back edges, m - (n - roots).
+  const pairs = m - (n - roots.length) + 1
+  const lLow = new Int32Array(pairs)
+  const lHigh = new Int32Array(pairs)
+  const rLow = new Int32Array(pairs)
+  const rHigh = new Int32Array(pairs)
   let top = 0 // number of conflict pairs on the stack
 
   const lowest = (i: number): number => {
