@@ -14,7 +14,7 @@
  * Crossings are counted geometrically on both drawings (layoutStats); ours must be 0. At the end: how
  * many vertices show their out-edges in written order in the drawing (st-layout alone and kept).
  */
-import {readdirSync, readFileSync} from 'node:fs'
+import {readdirSync} from 'node:fs'
 import {cpus, loadavg} from 'node:os'
 import {join} from 'node:path'
 import {dagreLayout, type Box} from './support/dagre-layout.ts'
@@ -23,8 +23,7 @@ import {testUpwardPlanarity} from '../packages/core/src/upward/index.ts'
 import {stAugment, type StAugmentation} from '../packages/core/src/augment/index.ts'
 import {layoutSmallest, layoutStats, layoutUpward, writtenOrderKept, type Layout} from '../packages/core/src/layout/index.ts'
 import {checkDiagram, drawDiagram} from '../packages/core/src/index.ts'
-import {demoBodies} from '../test/demo/demo-graphs.ts'
-import {mulberry32 as prng} from '../test/support/random.ts'
+import {writtenOrderCorpus} from './support/written-order-corpus.ts'
 import {readGraphml} from '../packages/core/test/support/graphml.ts'
 import {randomUpwardPlanar} from '../packages/core/test/support/random-st.ts'
 import {augmentationOfRandomUpward, randomLayoutCase} from '../packages/core/test/support/layout-st-generator.ts'
@@ -192,22 +191,7 @@ if (target) {
 // 4242) without tiers or edge labels.
 {
   const repo = join(import.meta.dirname, '..')
-  const handwritten: string[] = demoBodies(join(repo, 'site-demo/pages')).map((b) => b.body)
-  for (const d of readdirSync(join(repo, 'fixtures/golden'), {withFileTypes: true}).filter((x) => x.isDirectory())) {
-    handwritten.push(readFileSync(join(repo, 'fixtures/golden', d.name, 'input.upright'), 'utf8'))
-  }
-  const random = prng(4242)
-  const generated: string[] = []
-  for (let round = 0; round < 600; round++) {
-    const n = 4 + Math.floor(random() * 12)
-    const lines: string[] = []
-    for (let u = 0; u < n; u++) for (let w = u + 1; w < n; w++) if (random() < 0.25) lines.push(`v${u} -> v${w}`)
-    for (let i = lines.length - 1; i > 0; i--) {
-      const j = Math.floor(random() * (i + 1))
-      ;[lines[i], lines[j]] = [lines[j]!, lines[i]!]
-    }
-    if (lines.length > 0) generated.push(lines.join('\n'))
-  }
+  const {handwritten, generated} = writtenOrderCorpus(repo)
   console.log('\nWritten order in the drawing (vertices with 2+ out-edges drawn left to right as written), flow up:')
   for (const [name, texts] of [['demo + golden', handwritten], ['random', generated]] as const) {
     let diagrams = 0, vertices = 0, stKept = 0, kept = 0, stArea = 0, area = 0

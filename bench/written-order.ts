@@ -6,33 +6,15 @@
  * Cases: every diagram of site-demo/pages and fixtures/golden, and 600 random acyclic digraphs of 4-15
  * vertices (edge probability 0.25, lines shuffled so edge ids are not sorted by head, seed 4242).
  */
-import {readFileSync, readdirSync} from 'node:fs'
 import path from 'node:path'
 import {fileURLToPath} from 'node:url'
 import {checkDiagram} from '../packages/core/src/index.ts'
 import {writtenOrderAgreement} from '../packages/core/src/check/written-order.ts'
-import {demoBodies} from '../test/demo/demo-graphs.ts'
-import {mulberry32 as prng} from '../test/support/random.ts'
+import {writtenOrderCorpus} from './support/written-order-corpus.ts'
 
 const repo = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..')
 
-const handwritten: string[] = demoBodies(path.join(repo, 'site-demo/pages')).map((b) => b.body)
-for (const name of readdirSync(path.join(repo, 'fixtures/golden'), {withFileTypes: true}).filter((d) => d.isDirectory())) {
-  handwritten.push(readFileSync(path.join(repo, 'fixtures/golden', name.name, 'input.upright'), 'utf8'))
-}
-
-const random = prng(4242)
-const generated: string[] = []
-for (let round = 0; round < 600; round++) {
-  const n = 4 + Math.floor(random() * 12)
-  const lines: string[] = []
-  for (let u = 0; u < n; u++) for (let w = u + 1; w < n; w++) if (random() < 0.25) lines.push(`v${u} -> v${w}`)
-  for (let i = lines.length - 1; i > 0; i--) {
-    const j = Math.floor(random() * (i + 1))
-    ;[lines[i], lines[j]] = [lines[j]!, lines[i]!]
-  }
-  if (lines.length > 0) generated.push(lines.join('\n'))
-}
+const {handwritten, generated} = writtenOrderCorpus(repo)
 
 function measure(texts: readonly string[], preferWrittenOrder: boolean): {vertices: number; kept: number; diagrams: number; millis: number} {
   let vertices = 0, kept = 0, diagrams = 0

@@ -6,7 +6,7 @@
  *
  * Figures: `npx --yes pnpm@12.4.2 bench written-order` (bench/written-order.ts: share of vertices with
  * two or more out-edges drawn left to right as written; site-demo and golden diagrams, and 600 random
- * digraphs like randomTexts below). 2026-12-02, load average 19 on 2 cores: demo + golden 65 of 77
+ * digraphs like randomAcyclicTexts in support/random-texts.ts). 2026-12-02, load average 19 on 2 cores: demo + golden 65 of 77
  * off, 76 of 77 on; random 43.1% off, 63.0% on. Before this tie-break (commit fe7161d, mirror only and
  * off by default; a scratch run of the same cases, not rerunnable from this tree): 32 of 59 demo +
  * golden (fewer demo pages then), 34.0% random. A capped search in written order run before the fast
@@ -21,6 +21,7 @@ import {testUpwardEmbedded} from '../src/upward/fixed-embedding.ts'
 import {layoutUpward} from '../src/layout/index.ts'
 import {checkDrawing} from './support/geometry-check.ts'
 import {prng} from './support/layout-st-generator.ts'
+import {randomAcyclicTexts} from './support/random-texts.ts'
 
 function drawable(graph: Digraph, upward: UpwardEmbedding): string[] {
   const boxes = Array.from({length: graph.vertexCount}, () => ({width: 40, height: 20}))
@@ -37,23 +38,6 @@ function drawnOrder(graph: Digraph, upward: UpwardEmbedding, v: number): number[
   for (let e = 0; e < graph.edgeCount; e++) if (graph.tail[e] === v) out.push(e)
   // The first bend (or end) of each edge after leaving v orders them left to right.
   return out.sort((a, b) => layout.edges[a]!.points[1]![0] - layout.edges[b]!.points[1]![0])
-}
-
-/** Random acyclic digraphs with edges written in shuffled order (so ids are not sorted by head). */
-function randomTexts(seed: number, count: number): string[] {
-  const random = prng(seed)
-  const texts: string[] = []
-  for (let round = 0; round < count; round++) {
-    const n = 4 + Math.floor(random() * 10)
-    const lines: string[] = []
-    for (let u = 0; u < n; u++) for (let w = u + 1; w < n; w++) if (random() < 0.25) lines.push(`v${u} -> v${w}`)
-    for (let i = lines.length - 1; i > 0; i--) {
-      const j = Math.floor(random() * (i + 1))
-      ;[lines[i], lines[j]] = [lines[j]!, lines[i]!]
-    }
-    if (lines.length > 0) texts.push(lines.join('\n'))
-  }
-  return texts
 }
 
 describe('written order', () => {
@@ -91,7 +75,7 @@ describe('written order', () => {
 
   it('keeps the written order more often, and every drawing is still upward and crossing-free', () => {
     let before = 0, after = 0, vertices = 0
-    for (const text of randomTexts(4242, 160)) {
+    for (const text of randomAcyclicTexts(4242, 160, 10)) {
       const plain = checkDiagram(text, {budgetMillis: 20_000, preferWrittenOrder: false})
       if (plain.status !== 'upward') continue
       const kept = checkDiagram(text, {budgetMillis: 20_000})
@@ -115,7 +99,7 @@ describe('written order', () => {
   })
 
   it('turning a source keeps its large angle in the same face', () => {
-    for (const text of randomTexts(99, 60)) {
+    for (const text of randomAcyclicTexts(99, 60, 10)) {
       const result = checkDiagram(text, {budgetMillis: 20_000, preferWrittenOrder: false})
       if (result.status !== 'upward') continue
       const up = result.upward!, turned = turnSourcesToWrittenOrder(up)
