@@ -1,7 +1,7 @@
 import {describe, expect, it} from 'vitest'
 import fc from 'fast-check'
 import {createDigraph, findCycle, verifyCycle} from '@upright/core'
-import {runPythonJson} from '../../../test/support/python.ts'
+import {networkxAcyclic} from './support/acyclic-networkx.ts'
 import {mulberry32, randomInt} from '../../../test/support/random.ts'
 
 /** A random DAG: edges only from lower to higher index in a random permutation. */
@@ -107,17 +107,7 @@ describe('agreement with networkx is_directed_acyclic_graph (reference library, 
       }
       graphs.push({n, edges})
     }
-    const reference = runPythonJson<boolean[]>(
-      `
-import json, sys, networkx as nx
-out = []
-for g in json.load(sys.stdin):
-    G = nx.MultiDiGraph(); G.add_nodes_from(range(g["n"])); G.add_edges_from(g["edges"])
-    out.append(nx.is_directed_acyclic_graph(G))
-print(json.dumps(out))
-`,
-      graphs
-    )
+    const reference = networkxAcyclic(graphs.map(({n, edges}) => ({vertexCount: n, edges})))
     let cyclic = 0
     graphs.forEach(({n, edges}, i) => {
       const g = createDigraph(n, edges)

@@ -9,7 +9,6 @@
  * e.g. Di Battista, Eades, Tamassia, Tollis, "Graph Drawing", 1999, sec. 9.1).
  * Data: the North DAGs, /work/shared/data/north/ (see SOURCE.md there).
  */
-import {spawnSync} from 'node:child_process'
 import {describe, expect, it} from 'vitest'
 import {stAugment} from '../src/augment/index.ts'
 import type {Digraph} from '../src/graph/digraph.ts'
@@ -17,6 +16,7 @@ import {layoutCandidates, layoutSmallest, levelCandidates, writtenOrderKept, typ
 import {SAME_ROWS_GAIN} from '../src/layout/smallest-layout.ts'
 import {testUpwardPlanarity} from '../src/upward/index.ts'
 import {checkDrawing} from './support/geometry-check.ts'
+import {networkxEachDigraph} from './support/networkx-digraphs.ts'
 import {prng, randomBoxes, randomLayoutCase} from './support/layout-st-generator.ts'
 import {createDigraph} from '../src/graph/digraph.ts'
 import {readGraphml} from './support/graphml.ts'
@@ -26,19 +26,7 @@ const flows: Flow[] = ['up', 'right', 'down', 'left']
 
 /** Longest path (in edges) of each DAG, from networkx. */
 function networkxLongestPaths(graphs: ReadonlyArray<{vertexCount: number; edges: ReadonlyArray<readonly [number, number]>}>): number[] {
-  const script = [
-    'import sys, json, networkx as nx',
-    'out = []',
-    'for n, edges in json.load(sys.stdin):',
-    '    g = nx.MultiDiGraph()',
-    '    g.add_nodes_from(range(n))',
-    '    g.add_edges_from(edges)',
-    '    out.append(nx.dag_longest_path_length(g))',
-    'json.dump(out, sys.stdout)',
-  ].join('\n')
-  const r = spawnSync('python3', ['-c', script], {input: JSON.stringify(graphs.map((g) => [g.vertexCount, g.edges])), encoding: 'utf8', maxBuffer: 1 << 28})
-  if (r.status !== 0) throw new Error(`python3/networkx failed: ${r.stderr}`)
-  return JSON.parse(r.stdout) as number[]
+  return networkxEachDigraph<number>(graphs, 'nx.dag_longest_path_length(g)')
 }
 
 /** Distinct box centres along the flow: the rows of a drawing. */
