@@ -163,17 +163,22 @@ function checkCase(c: Case): {rSkeletons: Array<Array<[number, number]>>; r: num
   return {rSkeletons, r: rCount, s: sCount, p: pCount}
 }
 
+/** checkCase on every case, totals summed. */
+function checkCases(cases: readonly Case[]): ReturnType<typeof checkCase> {
+  const total: ReturnType<typeof checkCase> = {rSkeletons: [], r: 0, s: 0, p: 0}
+  for (const c of cases) {
+    const one = checkCase(c)
+    total.rSkeletons.push(...one.rSkeletons)
+    total.r += one.r
+    total.s += one.s
+    total.p += one.p
+  }
+  return total
+}
+
 describe('triconnected components', () => {
   it('match networkx on 400 random biconnected graphs: separation pairs, triconnected R skeletons, a tree that recomposes the graph', () => {
-    const rSkeletons: Array<Array<[number, number]>> = []
-    let rCount = 0, sCount = 0, pCount = 0
-    for (const c of networkxCases(2026, 400)) {
-      const one = checkCase(c)
-      rSkeletons.push(...one.rSkeletons)
-      rCount += one.r
-      sCount += one.s
-      pCount += one.p
-    }
+    const {rSkeletons, r: rCount, s: sCount, p: pCount} = checkCases(networkxCases(2026, 400))
     const kappa = connectivities(rSkeletons)
     for (const k of kappa) expect(k).toBeGreaterThanOrEqual(3)
     expect(rCount).toBeGreaterThan(50)
@@ -182,16 +187,9 @@ describe('triconnected components', () => {
   })
 
   it('match networkx on 150 planar graphs glued from wheels and cycles (the planar path, which peels every separation pair in one sweep)', () => {
-    const rSkeletons: Array<Array<[number, number]>> = []
-    let rCount = 0, sCount = 0, pCount = 0, most = 0
-    for (const c of planarCases(2027, 150)) {
-      const one = checkCase(c)
-      rSkeletons.push(...one.rSkeletons)
-      rCount += one.r
-      sCount += one.s
-      pCount += one.p
-      most = Math.max(most, c.n)
-    }
+    const cases = planarCases(2027, 150)
+    const {rSkeletons, r: rCount, s: sCount, p: pCount} = checkCases(cases)
+    const most = Math.max(...cases.map((c) => c.n))
     for (const k of connectivities(rSkeletons)) expect(k).toBeGreaterThanOrEqual(3)
     expect(most).toBeGreaterThan(40)
     expect(rCount).toBeGreaterThan(200)

@@ -704,6 +704,18 @@ function rootTree(tc: TriconnectedComponents): RootedTree {
   return {linksOf, parent, parentLink, order, tin, tout}
 }
 
+/** Adds a child's in- and out-degree at vertex `v` to `deg` where v is its pole a or b. */
+function addAtPole(deg: PoleDegrees, v: number, a: number, b: number, inDegree: number, outDegree: number): void {
+  if (v === a) {
+    deg.inA += inDegree
+    deg.outA += outDegree
+  }
+  if (v === b) {
+    deg.inB += inDegree
+    deg.outB += outDegree
+  }
+}
+
 /** For every component but the root: pole degrees in its pertinent part (below its parent link). */
 function pertinentDegrees(
   tc: TriconnectedComponents,
@@ -724,10 +736,8 @@ function pertinentDegrees(
       if (e === ref) continue
       if (e.real !== -1) {
         const [t, h] = edges[e.real]!
-        if (t === a) deg.outA++
-        if (h === a) deg.inA++
-        if (t === b) deg.outB++
-        if (h === b) deg.inB++
+        addAtPole(deg, t, a, b, 0, 1)
+        addAtPole(deg, h, a, b, 1, 0)
       } else {
         const l = tc.links[e.virtual]!
         const child = l.node[0] === c ? l.node[1] : l.node[0]
@@ -735,22 +745,8 @@ function pertinentDegrees(
         const childRef = tc.components[child]!.edges.find((f) => f.virtual === e.virtual)!
         deg.hasSource ||= sub.hasSource
         // a pole of the child counts where it is a or b (it may be neither)
-        if (childRef.a === a) {
-          deg.inA += sub.inA
-          deg.outA += sub.outA
-        }
-        if (childRef.a === b) {
-          deg.inB += sub.inA
-          deg.outB += sub.outA
-        }
-        if (childRef.b === a) {
-          deg.inA += sub.inB
-          deg.outA += sub.outB
-        }
-        if (childRef.b === b) {
-          deg.inB += sub.inB
-          deg.outB += sub.outB
-        }
+        addAtPole(deg, childRef.a, a, b, sub.inA, sub.outA)
+        addAtPole(deg, childRef.b, a, b, sub.inB, sub.outB)
       }
       if (s !== a && s !== b && (e.a === s || e.b === s)) deg.hasSource = true
     }
