@@ -46,18 +46,35 @@ export function topologicalOrder(g: Digraph): Int32Array {
   return order
 }
 
+/** Longest path from the sources: rank(v) = edges on the longest path ending at v. O(n + m). */
+export function longestPathUp(g: Digraph, order: Int32Array = topologicalOrder(g)): Int32Array {
+  const rank = new Int32Array(g.vertexCount)
+  for (const v of order) {
+    for (let i = g.inStart[v]!; i < g.inStart[v + 1]!; i++) {
+      const r = rank[g.tail[g.inEdges[i]!]!]! + 1
+      if (r > rank[v]!) rank[v] = r
+    }
+  }
+  return rank
+}
+
+/** Longest path to the sinks: depth(v) = edges on the longest path starting at v. O(n + m). */
+export function longestPathToSinks(g: Digraph, order: Int32Array = topologicalOrder(g)): Int32Array {
+  const depth = new Int32Array(g.vertexCount)
+  for (let k = order.length - 1; k >= 0; k--) {
+    const v = order[k]!
+    for (let i = g.outStart[v]!; i < g.outStart[v + 1]!; i++) {
+      const d = depth[g.head[g.outEdges[i]!]!]! + 1
+      if (d > depth[v]!) depth[v] = d
+    }
+  }
+  return depth
+}
+
 export function layerByWeightedSpan(g: Digraph, weight: (e: number) => number): Layering {
   const n = g.vertexCount
   const order = topologicalOrder(g)
-  const rank = new Int32Array(n)
-  for (const v of order) {
-    let r = 0
-    for (let i = g.inStart[v]!; i < g.inStart[v + 1]!; i++) {
-      const pr = rank[g.tail[g.inEdges[i]!]!]! + 1
-      if (pr > r) r = pr
-    }
-    rank[v] = r
-  }
+  const rank = longestPathUp(g, order)
   let maxRank = 0
   for (let v = 0; v < n; v++) if (rank[v]! > maxRank) maxRank = rank[v]!
 

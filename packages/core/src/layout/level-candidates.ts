@@ -36,7 +36,7 @@ import {createDigraph, type Digraph} from '../graph/digraph.ts'
 import {testLevelPlanarity, type LevelItem, type LevelPlanarity, type LevelPlanarityOptions} from '../level/level-planarity.ts'
 import type {StAugmentation} from '../augment/index.ts'
 import {balanceRows} from './balance-rows.ts'
-import {layerByWeightedSpan, topologicalOrder} from './layering.ts'
+import {layerByWeightedSpan, longestPathToSinks, longestPathUp, topologicalOrder} from './layering.ts'
 
 export type LevelCandidateKind = 'longest-path' | 'longest-path-down' | 'short-edges' | 'relaxed-augmentation' | 'lifted'
 
@@ -294,31 +294,11 @@ function liftLevels(g: Digraph, maxTests: number, probe: (level: Int32Array) => 
   return result?.status === 'planar' ? compress(raw, n) : undefined
 }
 
-/** Longest path from the sources: level(v) = length of the longest path ending at v. */
-export function longestPathUp(g: Digraph): Int32Array {
-  const level = new Int32Array(g.vertexCount)
-  for (const v of topologicalOrder(g)) {
-    for (let i = g.inStart[v]!; i < g.inStart[v + 1]!; i++) {
-      const l = level[g.tail[g.inEdges[i]!]!]! + 1
-      if (l > level[v]!) level[v] = l
-    }
-  }
-  return level
-}
-
 /** Longest path to the sinks, turned over: the top level minus the longest path starting at v. */
 export function longestPathDown(g: Digraph): Int32Array {
-  const order = topologicalOrder(g)
-  const depth = new Int32Array(g.vertexCount)
+  const depth = longestPathToSinks(g)
   let top = 0
-  for (let k = order.length - 1; k >= 0; k--) {
-    const v = order[k]!
-    for (let i = g.outStart[v]!; i < g.outStart[v + 1]!; i++) {
-      const d = depth[g.head[g.outEdges[i]!]!]! + 1
-      if (d > depth[v]!) depth[v] = d
-    }
-    if (depth[v]! > top) top = depth[v]!
-  }
+  for (let v = 0; v < depth.length; v++) if (depth[v]! > top) top = depth[v]!
   return depth.map((d) => top - d)
 }
 
@@ -355,17 +335,9 @@ function relaxation(g: Digraph, h: Digraph, keep: Uint8Array): Relaxation {
   const edges: Array<[number, number]> = []
   for (let e = 0; e < h.edgeCount; e++) if (e < m || keep[e - m]) edges.push([h.tail[e]!, h.head[e]!])
   const k = createDigraph(h.vertexCount, edges)
-  const rank = longestPathUp(k)
   const order = topologicalOrder(k)
-  const depth = new Int32Array(k.vertexCount)
-  for (let i = order.length - 1; i >= 0; i--) {
-    const v = order[i]!
-    for (let p = k.outStart[v]!; p < k.outStart[v + 1]!; p++) {
-      const d = depth[k.head[k.outEdges[p]!]!]! + 1
-      if (d > depth[v]!) depth[v] = d
-    }
-  }
-  return {rank, depth, level: compress(rank, g.vertexCount)}
+  const rank = longestPathUp(k, order)
+  return {rank, depth: longestPathToSinks(k, order), level: compress(rank, g.vertexCount)}
 }
 
 /** 4. above: drop added edges on longest paths while the level test says planar. */
