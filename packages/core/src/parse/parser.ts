@@ -231,43 +231,38 @@ export function parseDiagram(text: string, settings: Readonly<ParseSettings> = {
     if (result.last) break
   }
 
-  if (outOfTime) {
-    // the rest of the text is unread, so the checks over the whole diagram below would mislead
-    diagnostics.sort((a, b) => a.range.start.offset - b.range.start.offset)
-    const parsed: ParsedDiagram = {vertices, edges, diagnostics, outOfTime}
-    if (tiers.length > 0) parsed.tiers = tiers
-    if (edgeLimitReached) parsed.edgeLimitReached = edgeLimitReached
-    return parsed
-  }
+  // Checks over the whole diagram; when parsing ran out of time the rest of the text is unread, so
+  // they would mislead.
+  if (!outOfTime) {
+    if (vertices.length === 0 && !hadError) {
+      const start = text.charCodeAt(0) === 0xfeff ? 1 : 0
+      diagnostics.push({
+        severity: 'error',
+        ruleId: 'empty-diagram',
+        reason: 'This diagram has no vertices: write at least one id, or an edge such as `a -> b`.',
+        range: wholeRange(text, start)
+      })
+    }
 
-  if (vertices.length === 0 && !hadError) {
-    const start = text.charCodeAt(0) === 0xfeff ? 1 : 0
-    diagnostics.push({
-      severity: 'error',
-      ruleId: 'empty-diagram',
-      reason: 'This diagram has no vertices: write at least one id, or an edge such as `a -> b`.',
-      range: wholeRange(text, start)
-    })
-  }
-
-  // Edges against the tiers, once every tier is known (a tier line may come after the edges).
-  for (const edge of edges) {
-    const from = vertices[edge.from]!.tier
-    const to = vertices[edge.to]!.tier
-    if (from === undefined || to === undefined || from < to) continue
-    const name = `${vertices[edge.from]!.key} -> ${vertices[edge.to]!.key}`
-    const related = [{range: tiers[from]!.range, reason: `Tier \`${tiers[from]!.name}\` is declared here.`}]
-    if (from !== to) related.push({range: tiers[to]!.range, reason: `Tier \`${tiers[to]!.name}\` is declared here, before it.`})
-    diagnostics.push({
-      severity: 'error',
-      ruleId: from === to ? 'edge-within-tier' : 'edge-against-tiers',
-      reason:
-        from === to
-          ? `The edge \`${name}\` joins two vertices of tier \`${tiers[from]!.name}\`; a tier's vertices sit side by side, so an edge between them cannot point the way the others do.`
-          : `The edge \`${name}\` points from tier \`${tiers[from]!.name}\` back to the earlier tier \`${tiers[to]!.name}\`; every edge must go from an earlier tier to a later one.`,
-      range: edge.range,
-      related
-    })
+    // Edges against the tiers, once every tier is known (a tier line may come after the edges).
+    for (const edge of edges) {
+      const from = vertices[edge.from]!.tier
+      const to = vertices[edge.to]!.tier
+      if (from === undefined || to === undefined || from < to) continue
+      const name = `${vertices[edge.from]!.key} -> ${vertices[edge.to]!.key}`
+      const related = [{range: tiers[from]!.range, reason: `Tier \`${tiers[from]!.name}\` is declared here.`}]
+      if (from !== to) related.push({range: tiers[to]!.range, reason: `Tier \`${tiers[to]!.name}\` is declared here, before it.`})
+      diagnostics.push({
+        severity: 'error',
+        ruleId: from === to ? 'edge-within-tier' : 'edge-against-tiers',
+        reason:
+          from === to
+            ? `The edge \`${name}\` joins two vertices of tier \`${tiers[from]!.name}\`; a tier's vertices sit side by side, so an edge between them cannot point the way the others do.`
+            : `The edge \`${name}\` points from tier \`${tiers[from]!.name}\` back to the earlier tier \`${tiers[to]!.name}\`; every edge must go from an earlier tier to a later one.`,
+        range: edge.range,
+        related
+      })
+    }
   }
 
   // Errors of one line come before the warnings and label errors found when it is applied, but the
@@ -276,6 +271,7 @@ export function parseDiagram(text: string, settings: Readonly<ParseSettings> = {
   const parsed: ParsedDiagram = {vertices, edges, diagnostics}
   if (tiers.length > 0) parsed.tiers = tiers
   if (edgeLimitReached) parsed.edgeLimitReached = edgeLimitReached
+  if (outOfTime) parsed.outOfTime = outOfTime
   return parsed
 }
 
