@@ -56,18 +56,19 @@ export interface SmallestLayout {
 }
 
 export function layoutSmallest(input: LayoutInput, options: Readonly<SmallestLayoutOptions> = {}): SmallestLayout {
-  const all = layoutCandidates(input, options)
+  const [first, ...levelDrawings] = layoutCandidates(input, options)
+  const st = first!.layout
+  const area = (l: Layout): number => l.width * l.height
   const keep = options.keepWrittenOrder ?? true
-  const floor = keep ? writtenOrderKept(input.graph, all[0]!.layout) : 0
-  let best: SmallestLayout | undefined
-  const st = all[0]!.layout
+  const floor = keep ? writtenOrderKept(input.graph, st) : 0
   const stRows = rowCount(st)
-  for (const c of all) {
-    if (keep && c.kind !== 'st' && writtenOrderKept(input.graph, c.layout) < floor) continue
-    if (c.kind !== 'st' && rowCount(c.layout) >= stRows && c.layout.width * c.layout.height > SAME_ROWS_GAIN * st.width * st.height) continue
-    if (!best || c.layout.width * c.layout.height < best.layout.width * best.layout.height) best = c
+  let best = first!
+  for (const c of levelDrawings) {
+    if (keep && writtenOrderKept(input.graph, c.layout) < floor) continue
+    if (rowCount(c.layout) >= stRows && area(c.layout) > SAME_ROWS_GAIN * area(st)) continue
+    if (area(c.layout) < area(best.layout)) best = c
   }
-  return best!
+  return best
 }
 
 /** Every drawing layoutSmallest compares, the st-layout first (for tests and benches). */
