@@ -54,6 +54,7 @@ describe('North DAGs: every candidate drawing checked, rows against networkx', (
       const graphs: Array<{file: string; vertexCount: number; edges: Array<[number, number]>; rows: number[]; longestPathRows: number | undefined}> = []
       let stRows = 0
       let keptRows = 0
+      let compactedGraphs = 0
       for (let i = c; i < files.length; i += chunks) {
         const {vertexCount, edges} = readGraphml(`${northDir}/${files[i]!}`)
         const dag = {file: files[i]!, vertexCount, edges}
@@ -68,9 +69,17 @@ describe('North DAGs: every candidate drawing checked, rows against networkx', (
           const check = checkDrawing(g, d.layout, {boxes})
           if (!check.ok) failures.push(`${dag.file} ${flow} ${d.kind}${d.balanced ? ' balanced' : ''}: ${check.problems.slice(0, 3).join('; ')}`)
         }
-        for (const lc of levelCandidates(g, st)) {
+        const levelled = levelCandidates(g, st)
+        for (const lc of levelled) {
           const bad = validLevels(g, lc.level)
           if (bad) failures.push(`${dag.file} ${lc.kind}: ${bad}`)
+        }
+        // The compacted assignment starts from the one with the fewest rows and must go below it.
+        const compacted = levelled.find((lc) => lc.kind === 'compacted')
+        if (compacted) {
+          compactedGraphs++
+          const others = levelled.filter((lc) => lc.kind !== 'compacted').map((lc) => Math.max(...lc.level) + 1)
+          if (Math.max(...compacted.level) + 1 >= Math.min(...others)) failures.push(`${dag.file}: compacted assignment not below the others`)
         }
         const kept = layoutSmallest({graph: g, st, boxes, flow})
         const area = (l: Layout): number => l.width * l.height
@@ -98,6 +107,7 @@ describe('North DAGs: every candidate drawing checked, rows against networkx', (
       expect(graphs.length).toBeGreaterThan(150)
       // The point of the module: fewer rows than the st-layout in total.
       expect(keptRows).toBeLessThan(stRows)
+      expect(compactedGraphs).toBeGreaterThan(0)
     })
   }
 })

@@ -24,7 +24,10 @@
  * 5. lifted: from G's longest-path layering, while the test answers "no", raise one vertex of the odd
  *    cycle it returns by a level (its successors follow as far as needed), taking the raise that
  *    passes, else the one with the fewest rows and then the shortest cycle; a greedy repair (ours),
- *    capped by `maxTests`.
+ *    capped by `maxTests`. A raise that gives an assignment already tested is skipped (without it
+ *    the search could raise a top vertex again and again, which compression undoes).
+ * 6. compacted: the assignment found so far with the fewest rows, rows taken out one at a time while
+ *    the test answers planar (compactLevels below), capped by `maxTests`.
  * A "no" from the test only rules out that candidate; every level test is bounded by `maxWork`
  * (pairs set up) and `maxSteps` (witness search), all of them together by `workBudget` (pairs set
  * up), deterministic counts, and `undecided` counts as no.
@@ -38,7 +41,7 @@ import type {StAugmentation} from '../augment/index.ts'
 import {balanceRows} from './balance-rows.ts'
 import {layerByWeightedSpan, longestPathToSinks, longestPathUp, topologicalOrder} from './layering.ts'
 
-export type LevelCandidateKind = 'longest-path' | 'longest-path-down' | 'short-edges' | 'relaxed-augmentation' | 'lifted'
+export type LevelCandidateKind = 'longest-path' | 'longest-path-down' | 'short-edges' | 'relaxed-augmentation' | 'lifted' | 'compacted'
 
 export interface LevelCandidate {
   kind: LevelCandidateKind
@@ -77,7 +80,7 @@ export interface LevelCandidateOptions {
   workBudget?: number | undefined
   /** Propagation steps per level test's witness search. Default 250,000. */
   maxSteps?: number | undefined
-  /** Level tests of the relaxed augmentation (4. above). Default 24. */
+  /** Level tests of each search: the relaxed augmentation, the lifted and the compacted assignment (4.–6. above). Default 24. */
   maxTests?: number | undefined
   /**
    * Row balancing (balance-rows.ts): each box's extent across the flow and the gaps between boxes and
@@ -128,8 +131,8 @@ export function levelCandidates(g: Digraph, st: StAugmentation, options: Readonl
     found.push({kind: 'relaxed-augmentation', ...relaxed, balanced: false})
   }
   // Each assignment found also with its rows evened out, and all with the orders of the other
-  // preferences where they differ. The lifted assignment (the costliest search) comes last, with
-  // what is left of the budget, so it never crowds out the others.
+  // preferences where they differ. The lifted and compacted assignments (the costliest searches)
+  // come last, with what is left of the budget, so they never crowd out the others.
   const out: LevelCandidate[] = []
   const expand = (from: number): void => {
     const rows = options.rows
@@ -154,8 +157,20 @@ export function levelCandidates(g: Digraph, st: StAugmentation, options: Readonl
   const done = found.length
   const lifted = liftLevels(g, options.maxTests ?? 24, (level) => probe(level, preferences[0]!))
   if (lifted) add('lifted', lifted, false)
+  // From the assignment found with the fewest rows (the first of them), rows taken out one at a time.
+  let fewest: Int32Array | undefined
+  for (const c of found) if (!fewest || height(c.level) < height(fewest)) fewest = c.level
+  const compacted = fewest && compactLevels(g, fewest, options.maxTests ?? 24, (level) => probe(level, preferences[0]!))
+  if (compacted) add('compacted', compacted, false)
   expand(done)
   return out
+}
+
+/** Levels used: one more than the highest. */
+function height(level: Int32Array): number {
+  let top = 0
+  for (let v = 0; v < level.length; v++) top = Math.max(top, level[v]! + 1)
+  return top
 }
 
 function ordersKey(orders: LevelItem[][]): string {
@@ -261,9 +276,11 @@ function liftLevels(g: Digraph, maxTests: number, probe: (level: Int32Array) => 
     }
     return raw
   }
-  const height = (level: Int32Array): number => level.reduce((a, b) => Math.max(a, b + 1), 0)
   let floor: Int32Array = new Int32Array(n)
   let raw: Int32Array = raise(floor)
+  // Assignments already tested: a raise that gives one of them again (its vertex was already on top,
+  // or the compression undoes it) would repeat the step without progress.
+  const seen = new Set<string>([compress(raw, n).join(',')])
   let result = probe(compress(raw, n))
   let tests = 1
   while (result?.status === 'not-planar' && tests < maxTests) {
@@ -279,6 +296,9 @@ function liftLevels(g: Digraph, maxTests: number, probe: (level: Int32Array) => 
       f[v] = raw[v]! + 1
       const r = raise(f)
       const level = compress(r, n)
+      const key = level.join(',')
+      if (seen.has(key)) continue
+      seen.add(key)
       const answer = probe(level)
       tests++
       if (!answer || answer.status === 'undecided') continue
@@ -292,6 +312,60 @@ function liftLevels(g: Digraph, maxTests: number, probe: (level: Int32Array) => 
     result = best.result
   }
   return result?.status === 'planar' ? compress(raw, n) : undefined
+}
+
+/**
+ * 6. above: take rows out of a level-planar assignment one at a time. Row r goes by moving every
+ * vertex from r up one level down, or every vertex below r one level up, each as far as its edges
+ * allow (a vertex whose neighbour blocks it stays, and pushes its own successors, or predecessors,
+ * back); a move counts only if the height drops. The first move (top row first, down before up)
+ * that the test answers planar is taken, until none is or `maxTests` tests have run. Assignments
+ * already tested are not tested again. A greedy search (ours); O(L · (n + m)) per step besides the
+ * tests, for L levels.
+ */
+function compactLevels(g: Digraph, start: Int32Array, maxTests: number, probe: (level: Int32Array) => LevelPlanarity | undefined): Int32Array | undefined {
+  const n = g.vertexCount
+  const order = topologicalOrder(g)
+  let cur = start
+  let improved = false
+  let tests = 0
+  const seen = new Set<string>([start.join(',')])
+  while (tests < maxTests) {
+    const h = height(cur)
+    let next: Int32Array | undefined
+    const moves: Array<[number, boolean]> = []
+    for (let r = h - 1; r >= 1; r--) moves.push([r, true], [r, false])
+    for (const [r, down] of moves) {
+      if (tests >= maxTests) break
+      const raw = new Int32Array(n)
+      if (down) {
+        for (const v of order) {
+          raw[v] = cur[v]! >= r ? cur[v]! - 1 : cur[v]!
+          for (let i = g.inStart[v]!; i < g.inStart[v + 1]!; i++) raw[v] = Math.max(raw[v]!, raw[g.tail[g.inEdges[i]!]!]! + 1)
+        }
+      } else {
+        for (let k = n - 1; k >= 0; k--) {
+          const v = order[k]!
+          raw[v] = cur[v]! < r ? cur[v]! + 1 : cur[v]!
+          for (let i = g.outStart[v]!; i < g.outStart[v + 1]!; i++) raw[v] = Math.min(raw[v]!, raw[g.head[g.outEdges[i]!]!]! - 1)
+        }
+      }
+      const level = compress(raw, n)
+      if (height(level) >= h) continue
+      const key = level.join(',')
+      if (seen.has(key)) continue
+      seen.add(key)
+      tests++
+      if (probe(level)?.status === 'planar') {
+        next = level
+        break
+      }
+    }
+    if (!next) break
+    cur = next
+    improved = true
+  }
+  return improved ? cur : undefined
 }
 
 /** Longest path to the sinks, turned over: the top level minus the longest path starting at v. */

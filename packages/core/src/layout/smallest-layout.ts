@@ -10,10 +10,11 @@
  * level widths; past that size the st-layout alone is used, which is linear) and each test is bounded
  * by deterministic work counts (level-candidates.ts).
  *
- * Orders on the levels: each level assignment is drawn with two preferred orders, where they differ:
- * the st-layout's (each vertex's and edge's abscissa in H's visibility representation, dual-order.ts)
- * and the written order (edge ids). Each is used as it is when it draws no crossing, and otherwise
- * breaks ties in the level test. A level drawing that shows fewer vertices' out-edges in written
+ * Orders on the levels: each level assignment is drawn with three preferred orders, where they differ:
+ * the st-layout's (each vertex's and edge's abscissa in H's visibility representation, dual-order.ts),
+ * the written order (edge ids) and a depth-first walk in written order. Each is used as it is when it
+ * draws no crossing, and otherwise breaks ties in the level test; a drawing is mirrored when the
+ * mirror shows more out-edges in written order. A level drawing that shows fewer vertices' out-edges in written
  * order than the st-layout is not kept (unless `keepWrittenOrder` is false), so the choice never
  * undoes the written-order preference of the upward test.
  */
@@ -21,6 +22,7 @@ import {boxHalves, resolveSpacing} from './banded-drawing.ts'
 import {dualOrder} from './dual-order.ts'
 import {layoutLevels} from './level-layout.ts'
 import {levelCandidates, type LevelCandidateKind, type OrderPreference} from './level-candidates.ts'
+import type {LevelItem} from '../level/level-planarity.ts'
 import {layoutUpward} from './layout-upward.ts'
 import type {Digraph} from '../graph/digraph.ts'
 import type {Layout, LayoutInput} from './types.ts'
@@ -80,12 +82,85 @@ export function layoutCandidates(input: LayoutInput, options: Readonly<SmallestL
   const spacing = resolveSpacing(input.spacing)
   const {halfU} = boxHalves(input.boxes, g.vertexCount, input.flow)
   const rows = {across: halfU.map((h) => 2 * h), nodeGap: spacing.node, edgeGap: spacing.edge}
-  const preferences = [{rank: vertexKey.subarray(0, g.vertexCount), edgeRank: edgeKey.subarray(0, g.edgeCount)}, writtenPlaces(g)]
+  const preferences = [{rank: vertexKey.subarray(0, g.vertexCount), edgeRank: edgeKey.subarray(0, g.edgeCount)}, writtenPlaces(g), depthFirstPlaces(g)]
   for (const c of levelCandidates(g, input.st, {preferences, rows})) {
-    const {layout} = layoutLevels({graph: g, level: c.level, orders: c.orders, boxes: input.boxes, flow: input.flow, spacing: input.spacing})
+    const orders = writtenOrderFacing(g, c.level, c.orders)
+    const {layout} = layoutLevels({graph: g, level: c.level, orders, boxes: input.boxes, flow: input.flow, spacing: input.spacing})
     out.push({layout, kind: c.kind, balanced: c.balanced})
   }
   return out
+}
+
+/**
+ * The orders as they are, or mirrored (every level reversed, still level planar) when the mirror
+ * shows more vertices' out-edges left to right in written order. A vertex's out-edges leave in the
+ * order of their next objects on the level above (level-layout.ts, ties by edge id), so the count
+ * is read off the orders. O(N + m log m) for N items.
+ */
+export function writtenOrderFacing(g: Digraph, level: ArrayLike<number>, orders: LevelItem[][]): LevelItem[][] {
+  const vertexAt = new Int32Array(g.vertexCount)
+  const edgeAt = new Map<number, number>()
+  const lv = orders.length
+  for (let l = 0; l < lv; l++) {
+    orders[l]!.forEach((item, i) => {
+      if (item.kind === 'vertex') vertexAt[item.vertex] = i
+      else edgeAt.set(item.edge * (lv + 1) + l, i)
+    })
+  }
+  let forward = 0
+  let backward = 0
+  for (let v = 0; v < g.vertexCount; v++) {
+    const from = g.outStart[v]!
+    const to = g.outStart[v + 1]!
+    if (to - from < 2) continue
+    const next = (e: number): number => {
+      const h = g.head[e]!
+      return level[h] === level[v]! + 1 ? vertexAt[h]! : edgeAt.get(e * (lv + 1) + level[v]! + 1)!
+    }
+    const edges = Array.from(g.outEdges.subarray(from, to))
+    const inOrder = (sign: number): boolean => {
+      const sorted = edges.slice().sort((a, b) => sign * (next(a) - next(b)) || a - b)
+      return sorted.every((e, i) => i === 0 || sorted[i - 1]! < e)
+    }
+    if (inOrder(1)) forward++
+    if (inOrder(-1)) backward++
+  }
+  return backward > forward ? orders.map((items) => items.slice().reverse()) : orders
+}
+
+/**
+ * Places from a depth-first walk in written order: the sources by their first written out-edge,
+ * each vertex's out-edges by id, a vertex numbered when first reached (preorder). In a tree this
+ * preorder is the left-to-right order that shows every vertex's out-edges as written; elsewhere it
+ * is a guess the level test follows where it has the choice. An edge's bends sit just before its
+ * head. O(n + m log m).
+ */
+export function depthFirstPlaces(g: Digraph): OrderPreference {
+  const n = g.vertexCount
+  const rank = new Float64Array(n).fill(-1)
+  const outs = (v: number): number[] => Array.from(g.outEdges.subarray(g.outStart[v]!, g.outStart[v + 1]!)).sort((a, b) => a - b)
+  let next = 0
+  const walk = (root: number): void => {
+    rank[root] = next++
+    const stack: Array<{edges: number[]; at: number}> = [{edges: outs(root), at: 0}]
+    while (stack.length > 0) {
+      const top = stack[stack.length - 1]!
+      if (top.at === top.edges.length) {
+        stack.pop()
+        continue
+      }
+      const h = g.head[top.edges[top.at++]!]!
+      if (rank[h]! >= 0) continue
+      rank[h] = next++
+      stack.push({edges: outs(h), at: 0})
+    }
+  }
+  const firstOut = (v: number): number => outs(v)[0] ?? Infinity
+  const sources = Array.from({length: n}, (_, v) => v).filter((v) => g.inStart[v + 1] === g.inStart[v])
+  sources.sort((a, b) => firstOut(a) - firstOut(b) || a - b)
+  for (const v of sources) walk(v) // every vertex of a DAG is reached from a source
+  const edgeRank = Float64Array.from({length: g.edgeCount}, (_, e) => rank[g.head[e]!]! - 0.5)
+  return {rank, edgeRank}
 }
 
 /**

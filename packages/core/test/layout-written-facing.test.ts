@@ -1,0 +1,85 @@
+/**
+ * Written order in level drawings (layout/smallest-layout.ts): the mirror choice and the depth-first
+ * order preference.
+ *
+ * - writtenOrderFacing reads, from the level orders alone, whether the mirror shows more vertices'
+ *   out-edges in written order. Checked against the drawings themselves: both orientations drawn by
+ *   layoutLevels and counted on the drawn ports (writtenOrderKept), on every eighth North DAG
+ *   (/work/shared/data/north/, see SOURCE.md there).
+ * - depthFirstPlaces on out-trees: the preorder of an ordered tree lists each vertex's children in
+ *   their order, and the subtrees of one vertex occupy consecutive, disjoint stretches of it (common
+ *   practice; Knuth, TAOCP vol. 1, sec. 2.3.1, recalled from memory). So every level of a layered
+ *   tree sorted by it draws no crossing and every branching vertex shows its out-edges as written.
+ */
+import {describe, expect, it} from 'vitest'
+import {stAugment} from '../src/augment/index.ts'
+import {createDigraph} from '../src/graph/digraph.ts'
+import {layoutLevels, levelCandidates, writtenOrderKept} from '../src/layout/index.ts'
+import {depthFirstPlaces, writtenOrderFacing} from '../src/layout/smallest-layout.ts'
+import {testUpwardPlanarity} from '../src/upward/index.ts'
+import {prng, randomBoxes} from './support/layout-st-generator.ts'
+import {readGraphml} from './support/graphml.ts'
+import {northDir, northFiles} from './support/north-dags.ts'
+
+describe('writtenOrderFacing', () => {
+  it('picks the orientation whose drawing shows more written order (North DAGs, every eighth)', () => {
+    const files = northFiles()
+    const failures: string[] = []
+    let mirrored = 0
+    let drawn = 0
+    for (let i = 0; i < files.length; i += 8) {
+      const {vertexCount, edges} = readGraphml(`${northDir}/${files[i]!}`)
+      const g = createDigraph(vertexCount, edges)
+      const res = testUpwardPlanarity(g)
+      if (res.status !== 'upward') continue
+      const st = stAugment(res.upward)
+      const boxes = randomBoxes(prng(i + 7), g.vertexCount)
+      for (const c of levelCandidates(g, st)) {
+        const draw = (orders: typeof c.orders): number => writtenOrderKept(g, layoutLevels({graph: g, level: c.level, orders, boxes, flow: 'up'}).layout)
+        const reversed = c.orders.map((items) => items.slice().reverse())
+        const facing = writtenOrderFacing(g, c.level, c.orders)
+        const best = Math.max(draw(c.orders), draw(reversed))
+        if (draw(facing) !== best) failures.push(`${files[i]} ${c.kind}: ${draw(facing)} in written order, the better orientation ${best}`)
+        if (facing !== c.orders) mirrored++
+        drawn++
+      }
+    }
+    expect(failures).toEqual([])
+    expect(drawn).toBeGreaterThan(100)
+    // Not a constant choice either way.
+    expect(mirrored).toBeGreaterThan(0)
+    expect(mirrored).toBeLessThan(drawn)
+  })
+})
+
+describe('depthFirstPlaces', () => {
+  it('draws random out-trees with every vertex in written order', () => {
+    const rand = prng(2026)
+    let branching = 0
+    for (let t = 0; t < 40; t++) {
+      const n = 3 + Math.floor(rand() * 40)
+      const pairs: Array<[number, number]> = []
+      for (let v = 1; v < n; v++) pairs.push([Math.floor(rand() * v), v])
+      // Written order (edge ids) unrelated to the vertex ids.
+      for (let i = pairs.length - 1; i > 0; i--) {
+        const j = Math.floor(rand() * (i + 1))
+        ;[pairs[i], pairs[j]] = [pairs[j]!, pairs[i]!]
+      }
+      const g = createDigraph(n, pairs)
+      const res = testUpwardPlanarity(g)
+      if (res.status !== 'upward') throw new Error('a tree is upward planar')
+      const st = stAugment(res.upward)
+      const candidates = levelCandidates(g, st, {preferences: [depthFirstPlaces(g)]})
+      expect(candidates.length).toBeGreaterThan(0)
+      let forks = 0
+      for (let v = 0; v < n; v++) if (g.outStart[v + 1]! - g.outStart[v]! >= 2) forks++
+      branching += forks
+      const boxes = randomBoxes(prng(t), n)
+      for (const c of candidates) {
+        const layout = layoutLevels({graph: g, level: c.level, orders: c.orders, boxes, flow: 'up'}).layout
+        expect(writtenOrderKept(g, layout)).toBe(forks)
+      }
+    }
+    expect(branching).toBeGreaterThan(50)
+  })
+})
