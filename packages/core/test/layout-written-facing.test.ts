@@ -1,6 +1,6 @@
 /**
- * Written order in level drawings (layout/smallest-layout.ts): the mirror choice and the depth-first
- * order preference.
+ * Written order in level drawings (layout/smallest-layout.ts): the mirror choice, the depth-first
+ * order preference and the repair that asks the level test for other orders.
  *
  * - writtenOrderFacing reads, from the level orders alone, whether the mirror shows more vertices'
  *   out-edges in written order. Checked against the drawings themselves: both orientations drawn by
@@ -15,7 +15,8 @@ import {describe, expect, it} from 'vitest'
 import {stAugment} from '../src/augment/index.ts'
 import {createDigraph} from '../src/graph/digraph.ts'
 import {layoutLevels, levelCandidates, writtenOrderKept} from '../src/layout/index.ts'
-import {depthFirstPlaces, writtenOrderFacing} from '../src/layout/smallest-layout.ts'
+import {depthFirstPlaces, towardsWrittenOrder, writtenOrderFacing} from '../src/layout/smallest-layout.ts'
+import {checkDrawing} from './support/geometry-check.ts'
 import {testUpwardPlanarity} from '../src/upward/index.ts'
 import {prng, randomBoxes} from './support/layout-st-generator.ts'
 import {readGraphml} from './support/graphml.ts'
@@ -49,6 +50,35 @@ describe('writtenOrderFacing', () => {
     // Not a constant choice either way.
     expect(mirrored).toBeGreaterThan(0)
     expect(mirrored).toBeLessThan(drawn)
+  })
+})
+
+describe('towardsWrittenOrder', () => {
+  it('returns only drawings that pass the geometric checker and show more written order (North DAGs, every fourth)', () => {
+    const files = northFiles()
+    const failures: string[] = []
+    let repaired = 0
+    for (let i = 0; i < files.length; i += 4) {
+      const {vertexCount, edges} = readGraphml(`${northDir}/${files[i]!}`)
+      const g = createDigraph(vertexCount, edges)
+      const res = testUpwardPlanarity(g)
+      if (res.status !== 'upward') continue
+      const st = stAugment(res.upward)
+      const boxes = randomBoxes(prng(i + 11), g.vertexCount)
+      for (const c of levelCandidates(g, st)) {
+        const draw = (orders: typeof c.orders) => layoutLevels({graph: g, level: c.level, orders, boxes, flow: 'up'}).layout
+        const before = writtenOrderFacing(g, c.level, c.orders)
+        const after = towardsWrittenOrder(g, c.level, before, {tests: 2, work: 500_000})
+        if (!after) continue
+        repaired++
+        const layout = draw(after)
+        const check = checkDrawing(g, layout, {boxes})
+        if (!check.ok) failures.push(`${files[i]} ${c.kind}: ${check.problems.slice(0, 3).join('; ')}`)
+        if (writtenOrderKept(g, layout) <= writtenOrderKept(g, draw(before))) failures.push(`${files[i]} ${c.kind}: no more written order`)
+      }
+    }
+    expect(failures).toEqual([])
+    expect(repaired).toBeGreaterThan(5)
   })
 })
 
