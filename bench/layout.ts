@@ -11,7 +11,9 @@
  * the exact upward test and stAugment; and random upward planar graphs of 100 .. 10,000 vertices
  * (spanning subgraphs of random planar st-graphs; which generator and augmentation per size is printed
  * with the table). The layout time excludes the test and the augmentation (printed apart).
- * Crossings are counted geometrically on both drawings (layoutStats); ours must be 0. At the end: how
+ * Crossings are counted geometrically on both drawings (layoutStats); ours must be 0. Area is width ×
+ * height as each layout reports it, and also (one line) the bounding box of everything drawn: dagre
+ * reports its size from its boxes, and some of its edges run outside it. At the end: how
  * many vertices show their out-edges in written order in the drawing (st-layout alone and kept).
  */
 import {readdirSync} from 'node:fs'
@@ -69,9 +71,36 @@ interface Row {
   kind: string
   stArea: number
   anyArea: number
+  /** Areas of the boxes' and edge points' bounding boxes (with the drawing's own box): ours, dagre's. */
+  extent: [number, number]
+  /** Whether our, and dagre's, boxes or edge points leave the width and height reported. */
+  overflows: [boolean, boolean]
 }
 
 const rowsOf = (l: Layout): number => new Set(l.nodes.map((n) => n.y)).size
+
+/**
+ * Width and height of everything drawn: the boxes, every edge point and the drawing's own box from
+ * the origin. dagre reports a size from its boxes, and some of its edges leave it.
+ */
+function extentOf(l: Layout): [number, number] {
+  let x0 = 0, y0 = 0, x1 = l.width, y1 = l.height
+  for (const n of l.nodes) {
+    x0 = Math.min(x0, n.x - n.width / 2)
+    x1 = Math.max(x1, n.x + n.width / 2)
+    y0 = Math.min(y0, n.y - n.height / 2)
+    y1 = Math.max(y1, n.y + n.height / 2)
+  }
+  for (const e of l.edges) {
+    for (const [x, y] of e.points) {
+      x0 = Math.min(x0, x)
+      x1 = Math.max(x1, x)
+      y0 = Math.min(y0, y)
+      y1 = Math.max(y1, y)
+    }
+  }
+  return [x1 - x0, y1 - y0]
+}
 
 function compare(name: string, g: Digraph, st: StAugmentation, prepMs: number, withDagre: boolean): Row {
   const {labels, boxes} = labelsFor(g.vertexCount)
@@ -88,7 +117,10 @@ function compare(name: string, g: Digraph, st: StAugmentation, prepMs: number, w
   const os = layoutStats(ours)
   if (os.crossings !== 0) throw new Error(`${name}: our layout has ${os.crossings} crossings`)
   const ts = withDagre ? layoutStats(theirs) : {area: NaN, aspectRatio: NaN, bends: NaN, totalEdgeLength: NaN, crossings: NaN}
-  return {name, n: g.vertexCount, m: g.edgeCount, prepMs, oursMs, svgMs, dagreMs, ours: os, theirs: ts, rows: [rowsOf(ours), withDagre ? rowsOf(theirs) : NaN], widthRatio: ours.width / theirs.width, heightRatio: ours.height / theirs.height, kind: smallest.kind + (smallest.balanced ? ' balanced' : ''), stArea: stOnly.width * stOnly.height, anyArea: any.width * any.height}
+  const [ow, oh] = extentOf(ours)
+  const [tw, th] = withDagre ? extentOf(theirs) : [NaN, NaN]
+  const overflows: [boolean, boolean] = [ow > ours.width + 0.01 || oh > ours.height + 0.01, tw > theirs.width + 0.01 || th > theirs.height + 0.01]
+  return {name, n: g.vertexCount, m: g.edgeCount, prepMs, oursMs, svgMs, dagreMs, ours: os, theirs: ts, rows: [rowsOf(ours), withDagre ? rowsOf(theirs) : NaN], widthRatio: ours.width / theirs.width, heightRatio: ours.height / theirs.height, kind: smallest.kind + (smallest.balanced ? ' balanced' : ''), stArea: stOnly.width * stOnly.height, anyArea: any.width * any.height, extent: [ow * oh, tw * th], overflows}
 }
 
 const fmt = (x: number, d = 1): string => (Number.isFinite(x) ? x.toFixed(d) : '–')
@@ -120,6 +152,8 @@ console.log(`  layout time total: ours ${fmt(sum(north.map((r) => r.oursMs)))} m
 console.log(`  crossings: ours ${sum(north.map((r) => r.ours.crossings))}, dagre ${sum(north.map((r) => r.theirs.crossings))} in ${north.filter((r) => r.theirs.crossings > 0).length} graphs`)
 const areaRatios = north.map((r) => r.ours.area / r.theirs.area).filter(Number.isFinite)
 console.log(`  area ours/dagre: total ${fmt(ratio(north, (r) => r.ours.area, (r) => r.theirs.area), 3)}, median per graph ${fmt(median(areaRatios), 3)}, graphs where ours is larger ${areaRatios.filter((x) => x > 1).length}/${areaRatios.length}`)
+const extentRatios = north.map((r) => r.extent[0] / r.extent[1]).filter(Number.isFinite)
+console.log(`  area of everything drawn (boxes and edge points; they leave the reported size in ${north.filter((r) => r.overflows[1]).length} of dagre's drawings, ${north.filter((r) => r.overflows[0]).length} of ours): total ${fmt(ratio(north, (r) => r.extent[0], (r) => r.extent[1]), 3)}, median per graph ${fmt(median(extentRatios), 3)}, graphs where ours is larger ${extentRatios.filter((x) => x > 1).length}/${extentRatios.length}`)
 const stRatios = north.map((r) => r.stArea / r.theirs.area).filter(Number.isFinite)
 console.log(`  st-layout alone (layoutUpward): area ours/dagre total ${fmt(ratio(north, (r) => r.stArea, (r) => r.theirs.area), 3)}, median per graph ${fmt(median(stRatios), 3)}, larger ${stRatios.filter((x) => x > 1).length}/${stRatios.length}`)
 const anyRatios = north.map((r) => r.anyArea / r.theirs.area).filter(Number.isFinite)
