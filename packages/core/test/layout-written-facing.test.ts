@@ -10,12 +10,14 @@
  *   their order, and the subtrees of one vertex occupy consecutive, disjoint stretches of it (common
  *   practice; Knuth, TAOCP vol. 1, sec. 2.3.1, recalled from memory). So every level of a layered
  *   tree sorted by it draws no crossing and every branching vertex shows its out-edges as written.
+ * - lowerOutNeighbours moves only out-neighbours of vertices not in written order, only down, keeps
+ *   every edge upward, and its drawing passes the geometric checker (exact predicates).
  */
 import {describe, expect, it} from 'vitest'
 import {stAugment} from '../src/augment/index.ts'
 import {createDigraph} from '../src/graph/digraph.ts'
 import {layoutLevels, levelCandidates, writtenOrderKept} from '../src/layout/index.ts'
-import {depthFirstPlaces, towardsWrittenOrder, writtenOrderFacing} from '../src/layout/smallest-layout.ts'
+import {depthFirstPlaces, lowerOutNeighbours, towardsWrittenOrder, writtenOrderFacing} from '../src/layout/smallest-layout.ts'
 import {checkDrawing} from './support/geometry-check.ts'
 import {testUpwardPlanarity} from '../src/upward/index.ts'
 import {prng, randomBoxes} from './support/layout-st-generator.ts'
@@ -79,6 +81,53 @@ describe('towardsWrittenOrder', () => {
     }
     expect(failures).toEqual([])
     expect(repaired).toBeGreaterThan(5)
+  })
+})
+
+describe('lowerOutNeighbours', () => {
+  it('lowers only out-neighbours of vertices out of written order and draws them crossing-free (North DAGs, every fourth)', () => {
+    const files = northFiles()
+    const failures: string[] = []
+    let lowered = 0
+    let moreWritten = 0
+    for (let i = 0; i < files.length; i += 4) {
+      const {vertexCount, edges} = readGraphml(`${northDir}/${files[i]!}`)
+      const g = createDigraph(vertexCount, edges)
+      const res = testUpwardPlanarity(g)
+      if (res.status !== 'upward') continue
+      const st = stAugment(res.upward)
+      const boxes = randomBoxes(prng(i + 13), g.vertexCount)
+      for (const c of levelCandidates(g, st)) {
+        const before = writtenOrderFacing(g, c.level, c.orders)
+        const beforeLayout = layoutLevels({graph: g, level: c.level, orders: before, boxes, flow: 'up'}).layout
+        // Vertices out of written order in the drawing before, and their out-neighbours.
+        const allowed = new Set<number>()
+        for (let v = 0; v < g.vertexCount; v++) {
+          const out = Array.from(g.outEdges.subarray(g.outStart[v]!, g.outStart[v + 1]!)).sort((a, b) => a - b)
+          const x = (e: number): number => beforeLayout.edges[e]!.points[0]![0]
+          if (out.some((e, k) => k > 0 && x(out[k - 1]!) >= x(e))) for (const e of out) allowed.add(g.head[e]!)
+        }
+        const after = lowerOutNeighbours(g, c.level, before, {tests: 1, work: 500_000})
+        if (!after) continue
+        lowered++
+        // Others keep their levels, up to rows left empty disappearing: their order by level is kept.
+        const others = Array.from({length: g.vertexCount}, (_, v) => v).filter((v) => !allowed.has(v))
+        for (let v = 0; v < g.vertexCount; v++) if (after.level[v]! > c.level[v]!) failures.push(`${files[i]} ${c.kind}: vertex ${v} raised`)
+        for (const u of others) {
+          for (const v of others) {
+            if (Math.sign(after.level[u]! - after.level[v]!) !== Math.sign(c.level[u]! - c.level[v]!)) failures.push(`${files[i]} ${c.kind}: vertex ${u} or ${v} moved`)
+          }
+        }
+        for (let e = 0; e < g.edgeCount; e++) if (after.level[g.head[e]!]! <= after.level[g.tail[e]!]!) failures.push(`${files[i]} ${c.kind}: edge ${e} not upward`)
+        const layout = layoutLevels({graph: g, level: after.level, orders: after.orders, boxes, flow: 'up'}).layout
+        const check = checkDrawing(g, layout, {boxes})
+        if (!check.ok) failures.push(`${files[i]} ${c.kind}: ${check.problems.slice(0, 3).join('; ')}`)
+        if (writtenOrderKept(g, layout) > writtenOrderKept(g, beforeLayout)) moreWritten++
+      }
+    }
+    expect(failures).toEqual([])
+    expect(lowered).toBeGreaterThan(5)
+    expect(moreWritten).toBeGreaterThan(0)
   })
 })
 

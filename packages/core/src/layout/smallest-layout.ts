@@ -15,8 +15,9 @@
  * the written order (edge ids) and a depth-first walk in written order. Each is used as it is when it
  * draws no crossing, and otherwise breaks ties in the level test; a drawing is mirrored when the
  * mirror shows more out-edges in written order. A level drawing smaller than the st-layout but below
- * its written order gets other witnesses of its levels asked for (towardsWrittenOrder), within a
- * per-diagram count of tests. A level drawing that shows fewer vertices' out-edges in written
+ * its written order gets other witnesses of its levels asked for (towardsWrittenOrder), and where
+ * none shows more, the out-neighbours of the vertices out of written order lowered (lowerOutNeighbours),
+ * within a per-diagram count of tests. A level drawing that shows fewer vertices' out-edges in written
  * order than the st-layout is not kept (unless `keepWrittenOrder` is false), so the choice never
  * undoes the written-order preference of the upward test.
  */
@@ -99,15 +100,21 @@ export function layoutCandidates(input: LayoutInput, options: Readonly<SmallestL
   const repair = {tests: REPAIR_TESTS, work: REPAIR_WORK}
   const draw = (level: Int32Array, orders: LevelItem[][]): Layout => layoutLevels({graph: g, level, orders, boxes: input.boxes, flow: input.flow, spacing: input.spacing}).layout
   for (const c of levelCandidates(g, input.st, {preferences, rows})) {
-    let orders = writtenOrderFacing(g, c.level, c.orders)
-    let layout = draw(c.level, orders)
+    let level = c.level
+    let orders = writtenOrderFacing(g, level, c.orders)
+    let layout = draw(level, orders)
     // Smaller than the st-layout but below its written order (so layoutSmallest would pass it by):
-    // other orders of the same levels that show more of it, while the repair budget lasts.
+    // other orders of the same levels that show more of it, else the same drawing with the out-
+    // neighbours of the vertices not in written order lowered, while the repair budget lasts.
     while (layout.width * layout.height < stArea && writtenOrderKept(g, layout) < floor) {
-      const better = towardsWrittenOrder(g, c.level, orders, repair)
-      if (!better) break
-      orders = better
-      layout = draw(c.level, orders)
+      const better = towardsWrittenOrder(g, level, orders, repair)
+      if (better) orders = better
+      else {
+        const lowered = lowerOutNeighbours(g, level, orders, repair)
+        if (!lowered) break
+        ;({level, orders} = lowered)
+      }
+      layout = draw(level, orders)
     }
     out.push({layout, kind: c.kind, balanced: c.balanced})
   }
@@ -201,6 +208,67 @@ export function towardsWrittenOrder(g: Digraph, level: Int32Array, orders: Level
     if (after.forward > now.forward) return facing
   }
   return undefined
+}
+
+/**
+ * When no witness of these levels shows more written order: the out-neighbours of each vertex not in
+ * written order moved down to the lowest level their in-edges allow, and the level test asked for
+ * orders of the new levels with the current ones as the preference (as in towardsWrittenOrder).
+ * Why: a head far above its tail (row balancing and the layering to the sinks lift sinks to the top)
+ * turns the out-edge into a long edge that has to pass beside whatever lies between, which can force
+ * the out-edges out of written order; the shortest edges leave the most freedom. Returned when the
+ * test answers planar, even without a gain yet (the next round can repair the orders or lower
+ * further); the levels only go down, so the rounds end. One level test, counted against `budget`;
+ * undefined when nothing moves, the test says no or the budget is spent. O(n log n + m) besides the test.
+ */
+export function lowerOutNeighbours(g: Digraph, level: Int32Array, orders: LevelItem[][], budget: {tests: number; work: number}): {level: Int32Array; orders: LevelItem[][]} | undefined {
+  const {wrong} = writtenOrderCounts(g, level, orders)
+  const heads = new Set<number>()
+  for (const v of wrong) for (let i = g.outStart[v]!; i < g.outStart[v + 1]!; i++) heads.add(g.head[g.outEdges[i]!]!)
+  const raw = level.slice()
+  let moved = false
+  // Lowest level first, so a lowered head's own lowered out-neighbour sees its new level.
+  for (const h of [...heads].sort((a, b) => level[a]! - level[b]! || a - b)) {
+    let low = 0
+    for (let i = g.inStart[h]!; i < g.inStart[h + 1]!; i++) low = Math.max(low, raw[g.tail[g.inEdges[i]!]!]! + 1)
+    if (low < raw[h]!) {
+      raw[h] = low
+      moved = true
+    }
+  }
+  if (!moved) return undefined
+  // Levels left empty disappear (fewer rows).
+  const index = new Map(Array.from(new Set(raw)).sort((a, b) => a - b).map((l, i) => [l, i]))
+  const next = Int32Array.from(raw, (l) => index.get(l)!)
+  const work = levelTestWork(g, next)
+  if (budget.tests < 1 || work > budget.work) return undefined
+  budget.tests--
+  budget.work -= work
+  const {rank, edgeRank} = placesOf(g, orders)
+  const r = testLevelPlanarity(g, next, {rank, edgeRank, majority: true, maxWork: 250_000, maxSteps: 250_000})
+  if (r.status !== 'planar') return undefined
+  return {level: next, orders: writtenOrderFacing(g, next, r.orders)}
+}
+
+/** Each level's places scaled to [0, 1]: a vertex at its place, an edge at the mean of its places. */
+function placesOf(g: Digraph, orders: LevelItem[][]): {rank: Float64Array; edgeRank: Float64Array} {
+  const rank = new Float64Array(g.vertexCount)
+  const edgeRank = new Float64Array(g.edgeCount).fill(-1)
+  const edgeSum = new Float64Array(g.edgeCount)
+  const edgeSeen = new Float64Array(g.edgeCount)
+  orders.forEach((items) => {
+    const scale = items.length > 1 ? 1 / (items.length - 1) : 0
+    items.forEach((item, i) => {
+      if (item.kind === 'vertex') rank[item.vertex] = i * scale
+      else {
+        edgeSum[item.edge]! += i * scale
+        edgeSeen[item.edge]!++
+      }
+    })
+  })
+  // An edge with no bend yet (it may get some on new levels): between its ends.
+  for (let e = 0; e < g.edgeCount; e++) edgeRank[e] = edgeSeen[e] ? edgeSum[e]! / edgeSeen[e]! : (rank[g.tail[e]!]! + rank[g.head[e]!]!) / 2
+  return {rank, edgeRank}
 }
 
 /**
