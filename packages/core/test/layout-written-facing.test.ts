@@ -12,12 +12,14 @@
  *   tree sorted by it draws no crossing and every branching vertex shows its out-edges as written.
  * - lowerOutNeighbours moves only out-neighbours of vertices not in written order, only down, keeps
  *   every edge upward, and its drawing passes the geometric checker (exact predicates).
+ * - narrowerWitness gives other orders of the same levels (same items per level) that pass the
+ *   geometric checker, and some of them draw narrower.
  */
 import {describe, expect, it} from 'vitest'
 import {stAugment} from '../src/augment/index.ts'
 import {createDigraph} from '../src/graph/digraph.ts'
 import {layoutLevels, levelCandidates, writtenOrderKept} from '../src/layout/index.ts'
-import {depthFirstPlaces, lowerOutNeighbours, towardsWrittenOrder, writtenOrderFacing} from '../src/layout/smallest-layout.ts'
+import {depthFirstPlaces, lowerOutNeighbours, narrowerWitness, towardsWrittenOrder, writtenOrderFacing} from '../src/layout/smallest-layout.ts'
 import {checkDrawing} from './support/geometry-check.ts'
 import {testUpwardPlanarity} from '../src/upward/index.ts'
 import {prng, randomBoxes} from './support/layout-st-generator.ts'
@@ -128,6 +130,38 @@ describe('lowerOutNeighbours', () => {
     expect(failures).toEqual([])
     expect(lowered).toBeGreaterThan(5)
     expect(moreWritten).toBeGreaterThan(0)
+  })
+})
+
+describe('narrowerWitness', () => {
+  it('gives orders of the same items per level that draw crossing-free, some narrower (North DAGs, every fourth)', () => {
+    const files = northFiles()
+    const failures: string[] = []
+    let given = 0
+    let narrower = 0
+    const key = (items: ReadonlyArray<{kind: string; vertex?: number; edge?: number}>): string => items.map((i) => `${i.kind}${i.vertex ?? i.edge}`).sort().join(' ')
+    for (let i = 0; i < files.length; i += 4) {
+      const {vertexCount, edges} = readGraphml(`${northDir}/${files[i]!}`)
+      const g = createDigraph(vertexCount, edges)
+      const res = testUpwardPlanarity(g)
+      if (res.status !== 'upward') continue
+      const st = stAugment(res.upward)
+      const boxes = randomBoxes(prng(i + 17), g.vertexCount)
+      for (const c of levelCandidates(g, st)) {
+        const draw = (orders: typeof c.orders) => layoutLevels({graph: g, level: c.level, orders, boxes, flow: 'up'}).layout
+        const after = narrowerWitness(g, c.level, c.orders, boxes.map((b) => b.width), {node: 24, edge: 14}, {tests: 1, work: 500_000})
+        if (!after) continue
+        given++
+        if (after.length !== c.orders.length || after.some((items, l) => key(items) !== key(c.orders[l]!))) failures.push(`${files[i]} ${c.kind}: other items`)
+        const layout = draw(after)
+        const check = checkDrawing(g, layout, {boxes})
+        if (!check.ok) failures.push(`${files[i]} ${c.kind}: ${check.problems.slice(0, 3).join('; ')}`)
+        if (layout.width < draw(c.orders).width) narrower++
+      }
+    }
+    expect(failures).toEqual([])
+    expect(given).toBeGreaterThan(5)
+    expect(narrower).toBeGreaterThan(0)
   })
 })
 
