@@ -74,11 +74,13 @@ describe('North DAGs: every candidate drawing checked, rows against networkx', (
           const bad = validLevels(g, lc.level)
           if (bad) failures.push(`${dag.file} ${lc.kind}: ${bad}`)
         }
-        // The compacted assignment starts from the one with the fewest rows and must go below it.
-        const compacted = levelled.find((lc) => lc.kind === 'compacted')
+        // The compacted assignment starts from the one with the fewest rows found before it and must
+        // go below it (the turned-over lifted search comes after it).
+        const at = levelled.findIndex((lc) => lc.kind === 'compacted')
+        const compacted = levelled[at]
         if (compacted) {
           compactedGraphs++
-          const others = levelled.filter((lc) => lc.kind !== 'compacted').map((lc) => Math.max(...lc.level) + 1)
+          const others = levelled.slice(0, at).map((lc) => Math.max(...lc.level) + 1)
           if (Math.max(...compacted.level) + 1 >= Math.min(...others)) failures.push(`${dag.file}: compacted assignment not below the others`)
         }
         const kept = layoutSmallest({graph: g, st, boxes, flow})

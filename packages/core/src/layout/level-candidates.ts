@@ -28,6 +28,8 @@
  *    the search could raise a top vertex again and again, which compression undoes).
  * 6. compacted: the assignment found so far with the fewest rows, rows taken out one at a time while
  *    the test answers planar (compactLevels below), capped by `maxTests`.
+ * 7. lifted, turned over: 5. on G with its edges reversed (from the longest path to the sinks, a
+ *    vertex of the odd cycle lowered at a time), with what is left of the budget; kind 'lifted'.
  * A "no" from the test only rules out that candidate; every level test is bounded by `maxWork`
  * (pairs set up) and `maxSteps` (witness search), all of them together by `workBudget` (pairs set
  * up), deterministic counts, and `undecided` counts as no.
@@ -162,6 +164,15 @@ export function levelCandidates(g: Digraph, st: StAugmentation, options: Readonl
   for (const c of found) if (!fewest || height(c.level) < height(fewest)) fewest = c.level
   const compacted = fewest && compactLevels(g, fewest, options.maxTests ?? 24, (level) => probe(level, preferences[0]!))
   if (compacted) add('compacted', compacted, false)
+  // 7. The lifted search turned over: on G with its edges reversed, from the longest path to the
+  // sinks, each vertex of the odd cycle lowered instead of raised.
+  const reversed = createDigraph(n, Array.from({length: g.edgeCount}, (_, e): [number, number] => [g.head[e]!, g.tail[e]!]))
+  const turn = (l: Int32Array): Int32Array => {
+    const top = height(l) - 1
+    return l.map((x) => top - x)
+  }
+  const lowered = liftLevels(reversed, options.maxTests ?? 24, (level) => probe(turn(level), preferences[0]!))
+  if (lowered) add('lifted', turn(lowered), false)
   expand(done)
   return out
 }
