@@ -186,20 +186,8 @@ function writtenOrderCounts(g: Digraph, level: ArrayLike<number>, orders: LevelI
  */
 export function towardsWrittenOrder(g: Digraph, level: Int32Array, orders: LevelItem[][], budget: {tests: number; work: number}): LevelItem[][] | undefined {
   const now = writtenOrderCounts(g, level, orders)
-  const rank = new Float64Array(g.vertexCount)
-  const edgeRank = new Float64Array(g.edgeCount)
-  const edgeSeen = new Float64Array(g.edgeCount)
-  orders.forEach((items) => {
-    const scale = items.length > 1 ? 1 / (items.length - 1) : 0
-    items.forEach((item, i) => {
-      if (item.kind === 'vertex') rank[item.vertex] = i * scale
-      else {
-        edgeRank[item.edge]! += i * scale
-        edgeSeen[item.edge]!++
-      }
-    })
-  })
-  for (let e = 0; e < g.edgeCount; e++) if (edgeSeen[e]) edgeRank[e]! /= edgeSeen[e]!
+  // The levels stay, so every edge the test places (a long one) has bends here, at its mean place.
+  const {rank, edgeRank} = placesOf(g, orders)
   const place = (e: number): number => (level[g.head[e]!] === level[g.tail[e]!]! + 1 ? rank[g.head[e]!]! : edgeRank[e]!)
   const setPlace = (e: number, x: number): void => {
     if (level[g.head[e]!] === level[g.tail[e]!]! + 1) rank[g.head[e]!] = x
