@@ -26,28 +26,36 @@ import {prng, randomBoxes} from './support/layout-st-generator.ts'
 import {readGraphml} from './support/graphml.ts'
 import {northDir, northFiles} from './support/north-dags.ts'
 
+/**
+ * Every level candidate of every `step`-th upward planar North DAG (/work/shared/data/north/, see
+ * SOURCE.md there), drawn with random boxes seeded by the file's index plus `seed`.
+ */
+function* northCandidates(step: number, seed: number) {
+  const files = northFiles()
+  for (let i = 0; i < files.length; i += step) {
+    const {vertexCount, edges} = readGraphml(`${northDir}/${files[i]!}`)
+    const g = createDigraph(vertexCount, edges)
+    const res = testUpwardPlanarity(g)
+    if (res.status !== 'upward') continue
+    const st = stAugment(res.upward)
+    const boxes = randomBoxes(prng(i + seed), g.vertexCount)
+    for (const c of levelCandidates(g, st)) yield {file: files[i]!, g, boxes, c}
+  }
+}
+
 describe('writtenOrderFacing', () => {
   it('picks the orientation whose drawing shows more written order (North DAGs, every eighth)', () => {
-    const files = northFiles()
     const failures: string[] = []
     let mirrored = 0
     let drawn = 0
-    for (let i = 0; i < files.length; i += 8) {
-      const {vertexCount, edges} = readGraphml(`${northDir}/${files[i]!}`)
-      const g = createDigraph(vertexCount, edges)
-      const res = testUpwardPlanarity(g)
-      if (res.status !== 'upward') continue
-      const st = stAugment(res.upward)
-      const boxes = randomBoxes(prng(i + 7), g.vertexCount)
-      for (const c of levelCandidates(g, st)) {
-        const draw = (orders: typeof c.orders): number => writtenOrderKept(g, layoutLevels({graph: g, level: c.level, orders, boxes, flow: 'up'}).layout)
-        const reversed = c.orders.map((items) => items.slice().reverse())
-        const facing = writtenOrderFacing(g, c.level, c.orders)
-        const best = Math.max(draw(c.orders), draw(reversed))
-        if (draw(facing) !== best) failures.push(`${files[i]} ${c.kind}: ${draw(facing)} in written order, the better orientation ${best}`)
-        if (facing !== c.orders) mirrored++
-        drawn++
-      }
+    for (const {file, g, boxes, c} of northCandidates(8, 7)) {
+      const draw = (orders: typeof c.orders): number => writtenOrderKept(g, layoutLevels({graph: g, level: c.level, orders, boxes, flow: 'up'}).layout)
+      const reversed = c.orders.map((items) => items.slice().reverse())
+      const facing = writtenOrderFacing(g, c.level, c.orders)
+      const best = Math.max(draw(c.orders), draw(reversed))
+      if (draw(facing) !== best) failures.push(`${file} ${c.kind}: ${draw(facing)} in written order, the better orientation ${best}`)
+      if (facing !== c.orders) mirrored++
+      drawn++
     }
     expect(failures).toEqual([])
     expect(drawn).toBeGreaterThan(100)
@@ -59,27 +67,18 @@ describe('writtenOrderFacing', () => {
 
 describe('towardsWrittenOrder', () => {
   it('returns only drawings that pass the geometric checker and show more written order (North DAGs, every fourth)', () => {
-    const files = northFiles()
     const failures: string[] = []
     let repaired = 0
-    for (let i = 0; i < files.length; i += 4) {
-      const {vertexCount, edges} = readGraphml(`${northDir}/${files[i]!}`)
-      const g = createDigraph(vertexCount, edges)
-      const res = testUpwardPlanarity(g)
-      if (res.status !== 'upward') continue
-      const st = stAugment(res.upward)
-      const boxes = randomBoxes(prng(i + 11), g.vertexCount)
-      for (const c of levelCandidates(g, st)) {
-        const draw = (orders: typeof c.orders) => layoutLevels({graph: g, level: c.level, orders, boxes, flow: 'up'}).layout
-        const before = writtenOrderFacing(g, c.level, c.orders)
-        const after = towardsWrittenOrder(g, c.level, before, {tests: 2, work: 500_000})
-        if (!after) continue
-        repaired++
-        const layout = draw(after)
-        const check = checkDrawing(g, layout, {boxes})
-        if (!check.ok) failures.push(`${files[i]} ${c.kind}: ${check.problems.slice(0, 3).join('; ')}`)
-        if (writtenOrderKept(g, layout) <= writtenOrderKept(g, draw(before))) failures.push(`${files[i]} ${c.kind}: no more written order`)
-      }
+    for (const {file, g, boxes, c} of northCandidates(4, 11)) {
+      const draw = (orders: typeof c.orders) => layoutLevels({graph: g, level: c.level, orders, boxes, flow: 'up'}).layout
+      const before = writtenOrderFacing(g, c.level, c.orders)
+      const after = towardsWrittenOrder(g, c.level, before, {tests: 2, work: 500_000})
+      if (!after) continue
+      repaired++
+      const layout = draw(after)
+      const check = checkDrawing(g, layout, {boxes})
+      if (!check.ok) failures.push(`${file} ${c.kind}: ${check.problems.slice(0, 3).join('; ')}`)
+      if (writtenOrderKept(g, layout) <= writtenOrderKept(g, draw(before))) failures.push(`${file} ${c.kind}: no more written order`)
     }
     expect(failures).toEqual([])
     expect(repaired).toBeGreaterThan(5)
@@ -88,44 +87,35 @@ describe('towardsWrittenOrder', () => {
 
 describe('lowerOutNeighbours', () => {
   it('lowers only out-neighbours of vertices out of written order and draws them crossing-free (North DAGs, every fourth)', () => {
-    const files = northFiles()
     const failures: string[] = []
     let lowered = 0
     let moreWritten = 0
-    for (let i = 0; i < files.length; i += 4) {
-      const {vertexCount, edges} = readGraphml(`${northDir}/${files[i]!}`)
-      const g = createDigraph(vertexCount, edges)
-      const res = testUpwardPlanarity(g)
-      if (res.status !== 'upward') continue
-      const st = stAugment(res.upward)
-      const boxes = randomBoxes(prng(i + 13), g.vertexCount)
-      for (const c of levelCandidates(g, st)) {
-        const before = writtenOrderFacing(g, c.level, c.orders)
-        const beforeLayout = layoutLevels({graph: g, level: c.level, orders: before, boxes, flow: 'up'}).layout
-        // Vertices out of written order in the drawing before, and their out-neighbours.
-        const allowed = new Set<number>()
-        for (let v = 0; v < g.vertexCount; v++) {
-          const out = Array.from(g.outEdges.subarray(g.outStart[v]!, g.outStart[v + 1]!)).sort((a, b) => a - b)
-          const x = (e: number): number => beforeLayout.edges[e]!.points[0]![0]
-          if (out.some((e, k) => k > 0 && x(out[k - 1]!) >= x(e))) for (const e of out) allowed.add(g.head[e]!)
-        }
-        const after = lowerOutNeighbours(g, c.level, before, {tests: 1, work: 500_000})
-        if (!after) continue
-        lowered++
-        // Others keep their levels, up to rows left empty disappearing: their order by level is kept.
-        const others = Array.from({length: g.vertexCount}, (_, v) => v).filter((v) => !allowed.has(v))
-        for (let v = 0; v < g.vertexCount; v++) if (after.level[v]! > c.level[v]!) failures.push(`${files[i]} ${c.kind}: vertex ${v} raised`)
-        for (const u of others) {
-          for (const v of others) {
-            if (Math.sign(after.level[u]! - after.level[v]!) !== Math.sign(c.level[u]! - c.level[v]!)) failures.push(`${files[i]} ${c.kind}: vertex ${u} or ${v} moved`)
-          }
-        }
-        for (let e = 0; e < g.edgeCount; e++) if (after.level[g.head[e]!]! <= after.level[g.tail[e]!]!) failures.push(`${files[i]} ${c.kind}: edge ${e} not upward`)
-        const layout = layoutLevels({graph: g, level: after.level, orders: after.orders, boxes, flow: 'up'}).layout
-        const check = checkDrawing(g, layout, {boxes})
-        if (!check.ok) failures.push(`${files[i]} ${c.kind}: ${check.problems.slice(0, 3).join('; ')}`)
-        if (writtenOrderKept(g, layout) > writtenOrderKept(g, beforeLayout)) moreWritten++
+    for (const {file, g, boxes, c} of northCandidates(4, 13)) {
+      const before = writtenOrderFacing(g, c.level, c.orders)
+      const beforeLayout = layoutLevels({graph: g, level: c.level, orders: before, boxes, flow: 'up'}).layout
+      // Vertices out of written order in the drawing before, and their out-neighbours.
+      const allowed = new Set<number>()
+      for (let v = 0; v < g.vertexCount; v++) {
+        const out = Array.from(g.outEdges.subarray(g.outStart[v]!, g.outStart[v + 1]!)).sort((a, b) => a - b)
+        const x = (e: number): number => beforeLayout.edges[e]!.points[0]![0]
+        if (out.some((e, k) => k > 0 && x(out[k - 1]!) >= x(e))) for (const e of out) allowed.add(g.head[e]!)
       }
+      const after = lowerOutNeighbours(g, c.level, before, {tests: 1, work: 500_000})
+      if (!after) continue
+      lowered++
+      // Others keep their levels, up to rows left empty disappearing: their order by level is kept.
+      const others = Array.from({length: g.vertexCount}, (_, v) => v).filter((v) => !allowed.has(v))
+      for (let v = 0; v < g.vertexCount; v++) if (after.level[v]! > c.level[v]!) failures.push(`${file} ${c.kind}: vertex ${v} raised`)
+      for (const u of others) {
+        for (const v of others) {
+          if (Math.sign(after.level[u]! - after.level[v]!) !== Math.sign(c.level[u]! - c.level[v]!)) failures.push(`${file} ${c.kind}: vertex ${u} or ${v} moved`)
+        }
+      }
+      for (let e = 0; e < g.edgeCount; e++) if (after.level[g.head[e]!]! <= after.level[g.tail[e]!]!) failures.push(`${file} ${c.kind}: edge ${e} not upward`)
+      const layout = layoutLevels({graph: g, level: after.level, orders: after.orders, boxes, flow: 'up'}).layout
+      const check = checkDrawing(g, layout, {boxes})
+      if (!check.ok) failures.push(`${file} ${c.kind}: ${check.problems.slice(0, 3).join('; ')}`)
+      if (writtenOrderKept(g, layout) > writtenOrderKept(g, beforeLayout)) moreWritten++
     }
     expect(failures).toEqual([])
     expect(lowered).toBeGreaterThan(5)
@@ -135,29 +125,20 @@ describe('lowerOutNeighbours', () => {
 
 describe('narrowerWitness', () => {
   it('gives orders of the same items per level that draw crossing-free, some narrower (North DAGs, every fourth)', () => {
-    const files = northFiles()
     const failures: string[] = []
     let given = 0
     let narrower = 0
     const key = (items: ReadonlyArray<{kind: string; vertex?: number; edge?: number}>): string => items.map((i) => `${i.kind}${i.vertex ?? i.edge}`).sort().join(' ')
-    for (let i = 0; i < files.length; i += 4) {
-      const {vertexCount, edges} = readGraphml(`${northDir}/${files[i]!}`)
-      const g = createDigraph(vertexCount, edges)
-      const res = testUpwardPlanarity(g)
-      if (res.status !== 'upward') continue
-      const st = stAugment(res.upward)
-      const boxes = randomBoxes(prng(i + 17), g.vertexCount)
-      for (const c of levelCandidates(g, st)) {
-        const draw = (orders: typeof c.orders) => layoutLevels({graph: g, level: c.level, orders, boxes, flow: 'up'}).layout
-        const after = narrowerWitness(g, c.level, c.orders, boxes.map((b) => b.width), {node: 24, edge: 14}, {tests: 1, work: 500_000})
-        if (!after) continue
-        given++
-        if (after.length !== c.orders.length || after.some((items, l) => key(items) !== key(c.orders[l]!))) failures.push(`${files[i]} ${c.kind}: other items`)
-        const layout = draw(after)
-        const check = checkDrawing(g, layout, {boxes})
-        if (!check.ok) failures.push(`${files[i]} ${c.kind}: ${check.problems.slice(0, 3).join('; ')}`)
-        if (layout.width < draw(c.orders).width) narrower++
-      }
+    for (const {file, g, boxes, c} of northCandidates(4, 17)) {
+      const draw = (orders: typeof c.orders) => layoutLevels({graph: g, level: c.level, orders, boxes, flow: 'up'}).layout
+      const after = narrowerWitness(g, c.level, c.orders, boxes.map((b) => b.width), {node: 24, edge: 14}, {tests: 1, work: 500_000})
+      if (!after) continue
+      given++
+      if (after.length !== c.orders.length || after.some((items, l) => key(items) !== key(c.orders[l]!))) failures.push(`${file} ${c.kind}: other items`)
+      const layout = draw(after)
+      const check = checkDrawing(g, layout, {boxes})
+      if (!check.ok) failures.push(`${file} ${c.kind}: ${check.problems.slice(0, 3).join('; ')}`)
+      if (layout.width < draw(c.orders).width) narrower++
     }
     expect(failures).toEqual([])
     expect(given).toBeGreaterThan(5)
