@@ -200,10 +200,8 @@ export function towardsWrittenOrder(g: Digraph, level: Int32Array, orders: Level
   }
   const work = levelTestWork(g, level)
   for (const majority of [true, false]) {
-    if (budget.tests < 1 || work > budget.work) return undefined
-    budget.tests--
-    budget.work -= work
-    const r = testLevelPlanarity(g, level, {rank, edgeRank, majority, maxWork: 250_000, maxSteps: 250_000})
+    const r = paidLevelTest(g, level, {rank, edgeRank, majority}, budget, work)
+    if (!r) return undefined
     if (r.status !== 'planar') continue
     const facing = writtenOrderFacing(g, level, r.orders)
     const after = writtenOrderCounts(g, level, facing)
@@ -242,14 +240,27 @@ export function lowerOutNeighbours(g: Digraph, level: Int32Array, orders: LevelI
   // Levels left empty disappear (fewer rows).
   const index = new Map(Array.from(new Set(raw)).sort((a, b) => a - b).map((l, i) => [l, i]))
   const next = Int32Array.from(raw, (l) => index.get(l)!)
-  const work = levelTestWork(g, next)
+  const r = paidLevelTest(g, next, {...placesOf(g, orders), majority: true}, budget)
+  if (r?.status !== 'planar') return undefined
+  return {level: next, orders: writtenOrderFacing(g, next, r.orders)}
+}
+
+/**
+ * One level test with these preferred places, paid from `budget`: one test, and the pairs it sets up
+ * as levelTestWork counts them (`work`, when the caller has it already). Undefined, and nothing
+ * spent, when the budget cannot pay.
+ */
+function paidLevelTest(
+  g: Digraph,
+  level: Int32Array,
+  preference: {rank: Float64Array; edgeRank: Float64Array; majority: boolean},
+  budget: {tests: number; work: number},
+  work = levelTestWork(g, level)
+): ReturnType<typeof testLevelPlanarity> | undefined {
   if (budget.tests < 1 || work > budget.work) return undefined
   budget.tests--
   budget.work -= work
-  const {rank, edgeRank} = placesOf(g, orders)
-  const r = testLevelPlanarity(g, next, {rank, edgeRank, majority: true, maxWork: 250_000, maxSteps: 250_000})
-  if (r.status !== 'planar') return undefined
-  return {level: next, orders: writtenOrderFacing(g, next, r.orders)}
+  return testLevelPlanarity(g, level, {...preference, maxWork: 250_000, maxSteps: 250_000})
 }
 
 /** Each level's places scaled to [0, 1]: a vertex at its place, an edge at the mean of its places. */
@@ -313,12 +324,8 @@ export function narrowerWitness(g: Digraph, level: Int32Array, orders: LevelItem
     const [a, b] = k < first ? [first, boxesAt[1]!] : [boxesAt[boxesAt.length - 2]!, last]
     edgeRank[item.edge] = (a + (b - a) * (0.25 + (0.5 * (k + 1)) / (items.length + 1))) * scale
   }
-  const work = levelTestWork(g, level)
-  if (budget.tests < 1 || work > budget.work) return undefined
-  budget.tests--
-  budget.work -= work
-  const r = testLevelPlanarity(g, level, {rank, edgeRank, majority: true, maxWork: 250_000, maxSteps: 250_000})
-  if (r.status !== 'planar') return undefined
+  const r = paidLevelTest(g, level, {rank, edgeRank, majority: true}, budget)
+  if (r?.status !== 'planar') return undefined
   const facing = writtenOrderFacing(g, level, r.orders)
   const key = (o: LevelItem[][]): string => o.map((l) => l.map((i) => (i.kind === 'vertex' ? `v${i.vertex}` : `e${i.edge}`)).join(' ')).join('|')
   return key(facing) === key(orders) ? undefined : facing
