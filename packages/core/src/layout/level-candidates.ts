@@ -30,6 +30,11 @@
  *    the test answers planar (compactLevels below), capped by `maxTests`.
  * 7. lifted, turned over: 5. on G with its edges reversed (from the longest path to the sinks, a
  *    vertex of the odd cycle lowered at a time), with what is left of the budget; kind 'lifted'.
+ * 8. searched: with the rows fixed at one fewer than the fewest found so far, an exact search
+ *    (level-search.ts) for a level-planar assignment, first near that assignment, then without a
+ *    guide; repeated one row lower while it finds one, down to G's longest path; its own budget
+ *    (`search`), so it never takes tests from the others. Past them because it costs the most per
+ *    row it gains.
  * A "no" from the test only rules out that candidate; every level test is bounded by `maxWork`
  * (pairs set up) and `maxSteps` (witness search), all of them together by `workBudget` (pairs set
  * up), deterministic counts, and `undecided` counts as no.
@@ -42,8 +47,20 @@ import {testLevelPlanarity, type LevelItem, type LevelPlanarity, type LevelPlana
 import type {StAugmentation} from '../augment/index.ts'
 import {balanceRows} from './balance-rows.ts'
 import {layerByWeightedSpan, longestPathToSinks, longestPathUp, topologicalOrder} from './layering.ts'
+import {searchLevels, type LevelSearch} from './level-search.ts'
 
-export type LevelCandidateKind = 'longest-path' | 'longest-path-down' | 'short-edges' | 'relaxed-augmentation' | 'lifted' | 'compacted'
+/**
+ * Level tests, and pairs they set up, that the searched candidate (8. above) may spend per diagram;
+ * deterministic counts. On the 813 upward planar North DAGs (2026-12-02, scratch comparison with the
+ * bench's boxes): 150 tests with the first row capped at 40 draw 9 graphs smaller, none larger; 150
+ * uncapped 13 smaller but twice the CPU; 100 uncapped 11.
+ */
+const SEARCH_TESTS = 150
+const SEARCH_WORK = 750_000
+/** Of those, what the first row searched may spend (searchFewerRows). */
+const SEARCH_FIRST_TESTS = 40
+
+export type LevelCandidateKind = 'longest-path' | 'longest-path-down' | 'short-edges' | 'relaxed-augmentation' | 'lifted' | 'compacted' | 'searched'
 
 export interface LevelCandidate {
   kind: LevelCandidateKind
@@ -84,6 +101,8 @@ export interface LevelCandidateOptions {
   maxSteps?: number | undefined
   /** Level tests of each search: the relaxed augmentation, the lifted and the compacted assignment (4.–6. above). Default 24. */
   maxTests?: number | undefined
+  /** Budget of the searched candidate (8. above); default SEARCH_TESTS tests and SEARCH_WORK pairs. */
+  search?: {tests: number; work: number} | undefined
   /**
    * Row balancing (balance-rows.ts): each box's extent across the flow and the gaps between boxes and
    * beside bends. Without it, rows are not balanced.
@@ -173,8 +192,50 @@ export function levelCandidates(g: Digraph, st: StAugmentation, options: Readonl
   }
   const lowered = liftLevels(reversed, options.maxTests ?? 24, (level) => probe(turn(level), preferences[0]!))
   if (lowered) add('lifted', turn(lowered), false)
+  // 8. Searched: rows fixed, from one fewer than the fewest found down, with its own budget.
+  const searched = searchFewerRows(g, found, options.search ?? {tests: SEARCH_TESTS, work: SEARCH_WORK})
+  if (searched && !seen.some((s) => sameLevels(s, searched.level))) {
+    seen.push(searched.level)
+    found.push({kind: 'searched', level: searched.level, orders: test(searched.level) ?? searched.orders, balanced: false})
+  }
   expand(done)
   return out
+}
+
+/**
+ * 8. above: while the budget lasts, a level-planar assignment with one row fewer than the fewest
+ * found (searchLevels, level-search.ts), down to G's longest path; the last one found, or undefined.
+ */
+function searchFewerRows(g: Digraph, found: ReadonlyArray<{level: Int32Array}>, budget: {tests: number; work: number}): {level: Int32Array; orders: LevelItem[][]} | undefined {
+  if (found.length === 0) return undefined
+  const least = height(longestPathUp(g))
+  let guide = found[0]!.level
+  for (const c of found) if (height(c.level) < height(guide)) guide = c.level
+  /** A search given at most `tests` of the budget, charged with what it spent. */
+  const within = (tests: number, run: (part: {tests: number; work: number}) => LevelSearch): LevelSearch => {
+    const part = {tests: Math.min(tests, budget.tests), work: budget.work}
+    const start = {...part}
+    const r = run(part)
+    budget.tests -= start.tests - part.tests
+    budget.work -= start.work - part.work
+    return r
+  }
+  let best: {level: Int32Array; orders: LevelItem[][]} | undefined
+  while (height(guide) > least) {
+    // The first row is capped (SEARCH_FIRST_TESTS): most searches that find one do so within a few
+    // tests, and most that do not would spend the whole budget. Each row: first near the fewest-row
+    // assignment (its levels, clamped to each window) with half of the tests, then, if that stopped,
+    // without a guide with the rest.
+    const rows = height(guide) - 1
+    const cap = best ? budget.tests : Math.min(budget.tests, SEARCH_FIRST_TESTS)
+    const before = budget.tests
+    let r = within(Math.ceil(cap / 2), (part) => searchLevels(g, rows, part, guide))
+    if (r.status === 'stopped') r = within(cap - (before - budget.tests), (part) => searchLevels(g, rows, part))
+    if (r.status !== 'found') break
+    best = r
+    guide = r.level
+  }
+  return best
 }
 
 /** Levels used: one more than the highest. */

@@ -50,6 +50,11 @@ export interface LevelPlanarityOptions {
   /** Propagation steps the witness search may take before answering `undecided`. */
   maxSteps?: number
   /**
+   * Decide only: a planar answer comes without orders (`orders` empty), skipping the witness search.
+   * For callers that test many partial assignments and need the orders of the last one only.
+   */
+  decideOnly?: boolean
+  /**
    * Most pair variables plus segment pairs (P + Q above) to set up; past it the answer is `undecided`
    * before anything quadratic is allocated. Default 4,000,000.
    */
@@ -248,6 +253,8 @@ export function testLevelPlanarity(graph: Digraph, level: ArrayLike<number>, opt
     }
     return [...edges].sort((p, q) => p - q)
   }
+
+  if (options.decideOnly) return {status: 'planar', orders: []}
 
   // The witness: one value per component, transitivity propagated, backtracking on conflict. A free
   // variable forced by propagation is set on its own (named −1 − variable on the trail).

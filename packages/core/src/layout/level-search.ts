@@ -1,0 +1,236 @@
+/**
+ * A level assignment with a given number of rows, built one vertex at a time with backtracking,
+ * each partial assignment checked by the exact level-planarity test (level/level-planarity.ts,
+ * Randerath et al. 2001) on the subgraph placed so far.
+ *
+ * Why: the greedy candidates of level-candidates.ts move whole rows, or one vertex of an odd cycle at
+ * a time, from one full assignment to the next, and on sparse graphs with many sources and sinks they
+ * stop far above G's longest path (a North DAG with a 6-vertex longest path: 15 rows at best). Here the
+ * rows are fixed first and each vertex takes a level in its window: a subgraph of a level-planar graph
+ * with the same levels is level planar, so a partial assignment the test rejects is cut off with
+ * everything below it in the search tree. The search is exact (a backtracking search, ours): run to
+ * the end, a "none" is a proof that no assignment within that many rows is level planar.
+ *
+ * Order of the vertices: breadth first over the underlying undirected graph from a vertex of a longest
+ * path (the one with most neighbours), neighbours with more neighbours first, so each vertex but the
+ * first of each component joins the placed part by an edge. The window of v: at least the
+ * placed u with a path u ⇝ v, plus that path's longest length; at most the same from above; and within
+ * its longest paths from the sources and to the sinks.
+ *
+ * A vertex with at most one placed neighbour is placed without a test (on sparse graphs most are, and
+ * they seldom fail): the next test, at the latest the last one on the whole graph, sees it, and an
+ * odd cycle through it names it, so nothing accepted is unchecked and the search stays exact.
+ *
+ * Backtracking is conflict-directed (below): a failed level records the placed vertices whose levels
+ * make the odd cycle, and when every level of a vertex fails the search goes back to the latest of
+ * those, not to the vertex placed just before.
+ *
+ * Levels tried first: with `guide`, those nearest the guide's level of the vertex (a known assignment
+ * with one row more keeps most vertices where they are); then the least total span of the edges to
+ * placed neighbours; then the lower.
+ *
+ * Time: O(n · (n + m)) for the longest distances; each test is quadratic in the level widths
+ * (level-planarity.ts), the number of tests bounded by `budget` (tests, and pairs set up as
+ * levelTestWork counts them), deterministic counts; exponential without a budget.
+ */
+import {createDigraph, type Digraph} from '../graph/digraph.ts'
+import {testLevelPlanarity, type LevelItem} from '../level/level-planarity.ts'
+import {levelTestWork} from './level-candidates.ts'
+import {longestPathToSinks, longestPathUp, topologicalOrder} from './layering.ts'
+
+export type LevelSearch =
+  | {status: 'found'; level: Int32Array; orders: LevelItem[][]}
+  /** No assignment with that many rows is level planar (the search ran to its end). */
+  | {status: 'none'}
+  /** The budget ran out first. */
+  | {status: 'stopped'}
+
+export interface LevelSearchBudget {
+  tests: number
+  work: number
+}
+
+/** Longest path length from each vertex to every other (-1: no path). O(n · (n + m)). */
+function longestDistances(g: Digraph, order: Int32Array): Int32Array[] {
+  const n = g.vertexCount
+  return Array.from({length: n}, (_, s) => {
+    const d = new Int32Array(n).fill(-1)
+    d[s] = 0
+    for (const v of order) {
+      if (d[v]! < 0) continue
+      for (let i = g.outStart[v]!; i < g.outStart[v + 1]!; i++) {
+        const w = g.head[g.outEdges[i]!]!
+        if (d[v]! + 1 > d[w]!) d[w] = d[v]! + 1
+      }
+    }
+    return d
+  })
+}
+
+/** Neighbours of v (both directions), in edge order. */
+function neighbours(g: Digraph, v: number): number[] {
+  const out: number[] = []
+  for (let i = g.outStart[v]!; i < g.outStart[v + 1]!; i++) out.push(g.head[g.outEdges[i]!]!)
+  for (let i = g.inStart[v]!; i < g.inStart[v + 1]!; i++) out.push(g.tail[g.inEdges[i]!]!)
+  return out
+}
+
+/** The placing order described above. O(n log n + m). */
+function placingOrder(g: Digraph, up: Int32Array, down: Int32Array): number[] {
+  const n = g.vertexCount
+  const degree = (v: number): number => g.outStart[v + 1]! - g.outStart[v]! + g.inStart[v + 1]! - g.inStart[v]!
+  let top = 0
+  for (let v = 0; v < n; v++) top = Math.max(top, up[v]! + down[v]!)
+  const onLongest = (v: number): boolean => up[v]! + down[v]! === top
+  let start = -1
+  for (let v = 0; v < n; v++) if (onLongest(v) && (start < 0 || degree(v) > degree(start))) start = v
+  const order: number[] = []
+  const seen = new Uint8Array(n)
+  const queue: number[] = [start]
+  seen[start] = 1
+  let head = 0
+  let next = 0
+  while (order.length < n) {
+    if (head === queue.length) {
+      while (seen[next]) next++
+      queue.push(next)
+      seen[next] = 1
+    }
+    const v = queue[head++]!
+    order.push(v)
+    const nb = neighbours(g, v).sort((a, b) => degree(b) - degree(a) || a - b)
+    for (const w of nb) {
+      if (seen[w]) continue
+      seen[w] = 1
+      queue.push(w)
+    }
+  }
+  return order
+}
+
+/**
+ * A level-planar assignment of G within `rows` levels (levels left empty removed), or a proof that
+ * none exists, or 'stopped' when `budget` runs out (spent in place). `guide`: levels to stay near.
+ */
+export function searchLevels(g: Digraph, rows: number, budget: LevelSearchBudget, guide?: ArrayLike<number>): LevelSearch {
+  const n = g.vertexCount
+  const topo = topologicalOrder(g)
+  const up = longestPathUp(g, topo)
+  const down = longestPathToSinks(g, topo)
+  for (let v = 0; v < n; v++) if (up[v]! + down[v]! >= rows) return {status: 'none'}
+  const dist = longestDistances(g, topo)
+  const order = placingOrder(g, up, down)
+  const position = new Int32Array(n)
+  order.forEach((v, i) => (position[v] = i))
+  const level = new Int32Array(n).fill(-1)
+  let orders: LevelItem[][] | undefined
+
+  /**
+   * The level test on the first `count` vertices of the order: true when planar, else the positions
+   * of the ends of the odd cycle's edges (the placed vertices whose levels make it), or undefined
+   * when the budget is spent or the test undecided (the search stops).
+   */
+  const test = (count: number): true | number[] | undefined => {
+    const edges: Array<[number, number]> = []
+    const edgeOf: number[] = []
+    for (let e = 0; e < g.edgeCount; e++) {
+      const a = position[g.tail[e]!]!
+      const b = position[g.head[e]!]!
+      if (a < count && b < count) {
+        edges.push([a, b])
+        edgeOf.push(e)
+      }
+    }
+    const sub = createDigraph(count, edges)
+    const subLevel = Int32Array.from({length: count}, (_, i) => level[order[i]!]!)
+    const work = levelTestWork(sub, subLevel)
+    if (budget.tests < 1 || work > budget.work) return undefined
+    budget.tests--
+    budget.work -= work
+    const r = testLevelPlanarity(sub, subLevel, {maxWork: 250_000, maxSteps: 250_000, decideOnly: count < n})
+    if (r.status === 'undecided') return undefined
+    if (r.status === 'not-planar') return r.edges.flatMap((e) => [sub.tail[e]!, sub.head[e]!])
+    // Back to G's ids: the subgraph's vertex i is order[i], its edge j is G's edgeOf[j].
+    if (count === n) orders = r.orders.map((items) => items.map((item): LevelItem => (item.kind === 'vertex' ? {kind: 'vertex', vertex: order[item.vertex]!} : {kind: 'edge', edge: edgeOf[item.edge]!})))
+    return true
+  }
+
+  // Conflict-directed backjumping (Prosser, "Hybrid algorithms for the constraint satisfaction
+  // problem", Computational Intelligence 9(3), 1993): conflicts[i] holds the earlier positions whose
+  // levels ruled out levels of position i. An odd cycle depends only on the levels of its edges' ends
+  // (which points each edge has on which level, and so which equations exist), so those ends are the
+  // culprits; when every level of i fails, the search jumps back to the latest culprit, not to i − 1.
+  const conflicts: Array<Set<number>> = Array.from({length: n}, () => new Set())
+  const STOP = -3
+  const SOLVED = -1
+  /** SOLVED, STOP, or the position to go back to (-2: none, the search is over). */
+  const place = (i: number): number => {
+    if (i === n) return SOLVED
+    const v = order[i]!
+    const mine = conflicts[i]!
+    mine.clear()
+    // The window, and for each level of the global window it leaves out, the earliest placed vertex
+    // that rules it out (a culprit too: were it moved, that level could come back).
+    let lo = up[v]!
+    let hi = rows - 1 - down[v]!
+    const from = lo
+    const to = hi
+    for (let j = 0; j < i; j++) {
+      const u = order[j]!
+      if (dist[u]![v]! > 0) lo = Math.max(lo, level[u]! + dist[u]![v]!)
+      if (dist[v]![u]! > 0) hi = Math.min(hi, level[u]! - dist[v]![u]!)
+    }
+    for (let l = from; l <= to; l++) {
+      if (l >= lo && l <= hi) continue
+      for (let j = 0; j < i; j++) {
+        const u = order[j]!
+        if ((dist[u]![v]! > 0 && level[u]! + dist[u]![v]! > l) || (dist[v]![u]! > 0 && level[u]! - dist[v]![u]! < l)) {
+          mine.add(j)
+          break
+        }
+      }
+    }
+    const placed = neighbours(g, v).filter((w) => position[w]! < i)
+    const span = (l: number): number => placed.reduce((s, w) => s + Math.abs(level[w]! - l), 0)
+    const levels: number[] = []
+    for (let l = lo; l <= hi; l++) levels.push(l)
+    const near = (l: number): number => (guide ? Math.abs(l - guide[v]!) : 0)
+    levels.sort((a, b) => near(a) - near(b) || span(a) - span(b) || a - b)
+    for (const l of levels) {
+      level[v] = l
+      // A vertex joined to the placed part by one edge or none rarely makes it non-planar; it is
+      // checked with the next vertex tested (the last one always is), and a cycle through it names
+      // it as a culprit.
+      const pendant = placed.length <= 1 && i + 1 < n
+      const answer = pendant || test(i + 1)
+      if (answer === undefined) return STOP
+      if (answer !== true) {
+        for (const p of answer) if (p !== i) mine.add(p)
+        // A cycle without v rules out every level of v.
+        if (!answer.includes(i)) break
+        continue
+      }
+      const next = place(i + 1)
+      if (next === SOLVED || next === STOP) return next
+      if (next < i) {
+        level[v] = -1
+        return next
+      }
+    }
+    level[v] = -1
+    let back = -2
+    for (const p of mine) back = Math.max(back, p)
+    if (back >= 0) for (const p of mine) if (p !== back) conflicts[back]!.add(p)
+    return back
+  }
+
+  const result = place(0)
+  if (result === STOP) return {status: 'stopped'}
+  if (result !== SOLVED) return {status: 'none'}
+  // Levels left empty (possible when `rows` is above G's longest path) go: an edge passing one just
+  // loses its point there, and two crossing-free bands in a row make one.
+  const used = Array.from(new Set(level)).sort((a, b) => a - b)
+  if (used.length === rows) return {status: 'found', level, orders: orders!}
+  const index = new Map(used.map((l, i) => [l, i]))
+  return {status: 'found', level: Int32Array.from(level, (l) => index.get(l)!), orders: used.map((l) => orders![l]!)}
+}

@@ -1,0 +1,118 @@
+/**
+ * searchLevels (layout/level-search.ts): a level-planar assignment within a number of rows, or a
+ * proof that none exists.
+ *
+ * Reference: exhaustive enumeration. On small random DAGs every level assignment within the rows
+ * (each vertex between its longest paths from the sources and to the sinks) goes through
+ * testLevelPlanarity, which level.test.ts checks against a brute-force oracle over every combination
+ * of left-to-right orders; an assignment exists exactly when the search finds one, and each one found
+ * is re-checked with its orders by checkLevelDrawing (an independent crossing test). Also: the
+ * North DAG g.30.12 (/work/shared/data/north, see SOURCE.md there), where the search proves that its
+ * longest path's 8 rows cannot be drawn without crossings (dagre draws 8 rows with crossings) and
+ * finds 9.
+ */
+import {describe, expect, it} from 'vitest'
+import {createDigraph, type Digraph} from '../src/graph/digraph.ts'
+import {searchLevels} from '../src/layout/level-search.ts'
+import {longestPathToSinks, longestPathUp} from '../src/layout/layering.ts'
+import {testLevelPlanarity} from '../src/level/level-planarity.ts'
+import {checkLevelDrawing} from '../src/level/check-level-drawing.ts'
+import {prng} from './support/layout-st-generator.ts'
+import {readGraphml} from './support/graphml.ts'
+import {northDir} from './support/north-dags.ts'
+
+function randomDag(rand: () => number, n: number, p: number): Digraph {
+  const perm = Array.from({length: n}, (_, i) => i)
+  for (let i = n - 1; i > 0; i--) {
+    const j = Math.floor(rand() * (i + 1))
+    ;[perm[i], perm[j]] = [perm[j]!, perm[i]!]
+  }
+  const edges: Array<[number, number]> = []
+  for (let i = 0; i < n; i++) for (let j = i + 1; j < n; j++) if (rand() < p) edges.push([perm[i]!, perm[j]!])
+  return createDigraph(n, edges)
+}
+
+/** Whether some assignment within `rows` levels is level planar, by enumeration. */
+function existsByEnumeration(g: Digraph, rows: number): boolean {
+  const n = g.vertexCount
+  const up = longestPathUp(g)
+  const down = longestPathToSinks(g)
+  const level = new Int32Array(n)
+  const go = (v: number): boolean => {
+    if (v === n) {
+      for (let e = 0; e < g.edgeCount; e++) if (level[g.head[e]!]! <= level[g.tail[e]!]!) return false
+      return testLevelPlanarity(g, level).status === 'planar'
+    }
+    for (let l = up[v]!; l <= rows - 1 - down[v]!; l++) {
+      level[v] = l
+      if (go(v + 1)) return true
+    }
+    return false
+  }
+  return go(0)
+}
+
+function checkFound(g: Digraph, rows: number, level: Int32Array, orders: Parameters<typeof checkLevelDrawing>[2]): string | undefined {
+  for (let e = 0; e < g.edgeCount; e++) if (level[g.head[e]!]! <= level[g.tail[e]!]!) return `edge ${e} does not go up`
+  const height = Math.max(...level) + 1
+  if (height > rows) return `${height} rows, more than ${rows}`
+  const used = new Set(level)
+  if (used.size !== height) return 'an empty level'
+  const check = checkLevelDrawing(g, level, orders)
+  return check.ok ? undefined : check.reason
+}
+
+describe('searchLevels against exhaustive enumeration', () => {
+  it('agrees on 600 random DAGs of 5 to 9 vertices, guided or not, each assignment found re-checked', () => {
+    const rand = prng(20261202)
+    const failures: string[] = []
+    let found = 0
+    let none = 0
+    for (let c = 0; c < 600; c++) {
+      const n = 5 + Math.floor(rand() * 5)
+      const g = randomDag(rand, n, 0.25 + rand() * 0.35)
+      if (g.edgeCount === 0) continue
+      const least = Math.max(...longestPathUp(g)) + 1
+      for (let rows = least; rows <= least + 2; rows++) {
+        const expected = existsByEnumeration(g, rows)
+        const guide = Int32Array.from({length: n}, () => Math.floor(rand() * rows))
+        for (const r of [searchLevels(g, rows, {tests: 1e6, work: 1e9}), searchLevels(g, rows, {tests: 1e6, work: 1e9}, guide)]) {
+          if (r.status === 'stopped') failures.push(`case ${c} rows ${rows}: stopped`)
+          else if ((r.status === 'found') !== expected) failures.push(`case ${c} rows ${rows}: ${r.status}, enumeration says ${expected}`)
+          if (r.status === 'found') {
+            const bad = checkFound(g, rows, r.level, r.orders)
+            if (bad) failures.push(`case ${c} rows ${rows}: ${bad}`)
+            found++
+          } else if (r.status === 'none') none++
+        }
+      }
+    }
+    expect(failures).toEqual([])
+    // Both answers occur (the rows are set at the longest path and up to two above).
+    expect(found).toBeGreaterThan(100)
+    expect(none).toBeGreaterThan(20)
+  })
+
+  it('stops within its budget and spends it in place, deterministically', () => {
+    const {vertexCount, edges} = readGraphml(`${northDir}/g.37.18.graphml`)
+    const g = createDigraph(vertexCount, edges)
+    const a = {tests: 40, work: 1e9}
+    const b = {tests: 40, work: 1e9}
+    const ra = searchLevels(g, 10, a)
+    const rb = searchLevels(g, 10, b)
+    expect(ra.status).toBe('stopped')
+    expect(a.tests).toBe(0)
+    expect(JSON.stringify(rb)).toBe(JSON.stringify(ra))
+    expect(b).toEqual(a)
+  })
+
+  it('g.30.12: no level-planar drawing in its longest path of 8 rows, one in 9', () => {
+    const {vertexCount, edges} = readGraphml(`${northDir}/g.30.12.graphml`)
+    const g = createDigraph(vertexCount, edges)
+    expect(Math.max(...longestPathUp(g)) + 1).toBe(8)
+    expect(searchLevels(g, 8, {tests: 10_000, work: 1e9}).status).toBe('none')
+    const r = searchLevels(g, 9, {tests: 10_000, work: 1e9})
+    expect(r.status).toBe('found')
+    if (r.status === 'found') expect(checkFound(g, 9, r.level, r.orders)).toBeUndefined()
+  })
+})
