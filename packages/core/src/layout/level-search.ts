@@ -18,12 +18,14 @@
  * its longest paths from the sources and to the sinks.
  *
  * A vertex with at most one placed neighbour is placed without a test (on sparse graphs most are, and
- * they seldom fail): the next test, at the latest the last one on the whole graph, sees it, and an
- * odd cycle through it names it, so nothing accepted is unchecked and the search stays exact.
+ * they seldom fail), and so is every second vertex that closes a cycle (TEST_EVERY): the next test,
+ * at the latest the last one on the whole graph, sees it, and an odd cycle through it names it, so
+ * nothing accepted is unchecked and the search stays exact.
  *
  * Backtracking is conflict-directed (below): a failed level records the placed vertices whose levels
  * make the odd cycle, and when every level of a vertex fails the search goes back to the latest of
- * those, not to the vertex placed just before.
+ * those, not to the vertex placed just before. Each odd cycle is also kept (nogood recording), so the
+ * same levels of its ends met again later are ruled out without a test.
  *
  * Levels tried first: with `guide`, those nearest the guide's level of the vertex (a known assignment
  * with one row more keeps most vertices where they are); then the least total span of the edges to
@@ -44,6 +46,13 @@ export type LevelSearch =
   | {status: 'none'}
   /** The budget ran out first. */
   | {status: 'stopped'}
+
+/**
+ * Of the vertices that close a cycle with the placed part, every how many is tested. Testing every
+ * second one (against every one) cut the tests to a find on the North DAGs searched most (scratch,
+ * bench/level-rows.ts and per-graph drawings; see bench/README.md); the cycle still names the culprits.
+ */
+const TEST_EVERY = 2
 
 export interface LevelSearchBudget {
   tests: number
@@ -161,10 +170,32 @@ export function searchLevels(g: Digraph, rows: number, budget: LevelSearchBudget
   // (which points each edge has on which level, and so which equations exist), so those ends are the
   // culprits; when every level of i fails, the search jumps back to the latest culprit, not to i − 1.
   const conflicts: Array<Set<number>> = Array.from({length: n}, () => new Set())
+  // Nogood recording (Dechter, "Enhancement schemes for constraint processing: backjumping, learning,
+  // and cutset decomposition", Artificial Intelligence 41(3), 1990): each odd cycle is kept as the
+  // levels of its ends, filed under the latest of them. Those ends with those levels carry a
+  // non-level-planar subgraph in any assignment, so when the search comes back to the same levels
+  // after a jump, they are ruled out without a test. nogoods[i]: flat [position, level, …] lists.
+  const nogoods: number[][][] = Array.from({length: n}, () => [])
+  const record = (ends: number[]): void => {
+    const members = Array.from(new Set(ends))
+    let latest = -1
+    for (const p of members) latest = Math.max(latest, p)
+    nogoods[latest]!.push(members.flatMap((p) => [p, level[order[p]!]!]))
+  }
+  /** A recorded nogood of position i that the levels placed so far match, or undefined. */
+  const matching = (i: number): number[] | undefined => {
+    for (const ng of nogoods[i]!) {
+      let all = true
+      for (let k = 0; k < ng.length && all; k += 2) all = level[order[ng[k]!]!] === ng[k + 1]
+      if (all) return ng
+    }
+    return undefined
+  }
   const STOP = -3
   const SOLVED = -1
   /** SOLVED, STOP, or the position to go back to (-2: none, the search is over). */
-  const place = (i: number): number => {
+  /** `untested`: vertices closing a cycle placed since the last test on this path. */
+  const place = (i: number, untested = 0): number => {
     if (i === n) return SOLVED
     const v = order[i]!
     const mine = conflicts[i]!
@@ -198,19 +229,27 @@ export function searchLevels(g: Digraph, rows: number, budget: LevelSearchBudget
     levels.sort((a, b) => near(a) - near(b) || span(a) - span(b) || a - b)
     for (const l of levels) {
       level[v] = l
-      // A vertex joined to the placed part by one edge or none rarely makes it non-planar; it is
-      // checked with the next vertex tested (the last one always is), and a cycle through it names
-      // it as a culprit.
-      const pendant = placed.length <= 1 && i + 1 < n
-      const answer = pendant || test(i + 1)
+      const known = matching(i)
+      if (known) {
+        for (let k = 0; k < known.length; k += 2) if (known[k] !== i) mine.add(known[k]!)
+        continue
+      }
+      // A vertex joined to the placed part by one edge or none rarely makes it non-planar, and of
+      // those that close a cycle only every TEST_EVERY-th is tested: an untested one is checked with
+      // the next vertex tested (the last one always is), and a cycle through it names it as a
+      // culprit, so the jump goes back to it as if it had been tested.
+      const closes = placed.length >= 2
+      const untestedHere = i + 1 < n && (!closes || untested + 1 < TEST_EVERY)
+      const answer = untestedHere || test(i + 1)
       if (answer === undefined) return STOP
       if (answer !== true) {
+        record(answer)
         for (const p of answer) if (p !== i) mine.add(p)
         // A cycle without v rules out every level of v.
         if (!answer.includes(i)) break
         continue
       }
-      const next = place(i + 1)
+      const next = place(i + 1, untestedHere ? untested + (closes ? 1 : 0) : 0)
       if (next === SOLVED || next === STOP) return next
       if (next < i) {
         level[v] = -1
