@@ -62,45 +62,55 @@ function checkFound(g: Digraph, rows: number, level: Int32Array, orders: Paramet
   return check.ok ? undefined : check.reason
 }
 
+interface Tally {
+  failures: string[]
+  found: number
+  none: number
+}
+
+/**
+ * searchLevels on g within `rows`, unguided and with a random guide, against existsByEnumeration;
+ * each assignment found re-checked (checkFound). Disagreements go to tally.failures under `label`.
+ */
+function compareWithEnumeration(g: Digraph, rows: number, rand: () => number, label: string, tally: Tally): void {
+  const expected = existsByEnumeration(g, rows)
+  const guide = Int32Array.from({length: g.vertexCount}, () => Math.floor(rand() * rows))
+  for (const r of [searchLevels(g, rows, {tests: 1e6, work: 1e9}), searchLevels(g, rows, {tests: 1e6, work: 1e9}, guide)]) {
+    if (r.status === 'stopped') tally.failures.push(`${label}: stopped`)
+    else if ((r.status === 'found') !== expected) tally.failures.push(`${label}: ${r.status}, enumeration says ${expected}`)
+    if (r.status === 'found') {
+      const bad = checkFound(g, rows, r.level, r.orders)
+      if (bad) tally.failures.push(`${label}: ${bad}`)
+      tally.found++
+    } else if (r.status === 'none') tally.none++
+  }
+}
+
 describe('searchLevels against exhaustive enumeration', () => {
   it('agrees on 600 random DAGs of 5 to 9 vertices, guided or not, each assignment found re-checked', () => {
     const rand = prng(20261202)
-    const failures: string[] = []
-    let found = 0
-    let none = 0
+    const tally: Tally = {failures: [], found: 0, none: 0}
     for (let c = 0; c < 600; c++) {
       const n = 5 + Math.floor(rand() * 5)
       const g = randomDag(rand, n, 0.25 + rand() * 0.35)
       if (g.edgeCount === 0) continue
       const least = Math.max(...longestPathUp(g)) + 1
       for (let rows = least; rows <= least + 2; rows++) {
-        const expected = existsByEnumeration(g, rows)
-        const guide = Int32Array.from({length: n}, () => Math.floor(rand() * rows))
-        for (const r of [searchLevels(g, rows, {tests: 1e6, work: 1e9}), searchLevels(g, rows, {tests: 1e6, work: 1e9}, guide)]) {
-          if (r.status === 'stopped') failures.push(`case ${c} rows ${rows}: stopped`)
-          else if ((r.status === 'found') !== expected) failures.push(`case ${c} rows ${rows}: ${r.status}, enumeration says ${expected}`)
-          if (r.status === 'found') {
-            const bad = checkFound(g, rows, r.level, r.orders)
-            if (bad) failures.push(`case ${c} rows ${rows}: ${bad}`)
-            found++
-          } else if (r.status === 'none') none++
-        }
+        compareWithEnumeration(g, rows, rand, `case ${c} rows ${rows}`, tally)
       }
     }
-    expect(failures).toEqual([])
+    expect(tally.failures).toEqual([])
     // Both answers occur (the rows are set at the longest path and up to two above).
-    expect(found).toBeGreaterThan(100)
-    expect(none).toBeGreaterThan(20)
+    expect(tally.found).toBeGreaterThan(100)
+    expect(tally.none).toBeGreaterThan(20)
   })
 
   it('agrees on sparser DAGs of 10 to 13 vertices, where tests are skipped and odd cycles recur (nogoods)', () => {
     // Sparse graphs keep the windows wide and the search deep: many vertices close a cycle (every
     // second one untested) and the search returns to levels it has ruled out before.
     const rand = prng(20261203)
-    const failures: string[] = []
-    let found = 0
-    let none = 0
-    for (let c = 0; c < 300 && found + none < 160; c++) {
+    const tally: Tally = {failures: [], found: 0, none: 0}
+    for (let c = 0; c < 300 && tally.found + tally.none < 160; c++) {
       const n = 10 + Math.floor(rand() * 4)
       const g = randomDag(rand, n, 0.18 + rand() * 0.12)
       if (g.edgeCount === 0) continue
@@ -111,22 +121,12 @@ describe('searchLevels against exhaustive enumeration', () => {
         let assignments = 1
         for (let v = 0; v < n; v++) assignments *= rows - up[v]! - down[v]!
         if (assignments > 20_000) continue
-        const expected = existsByEnumeration(g, rows)
-        const guide = Int32Array.from({length: n}, () => Math.floor(rand() * rows))
-        for (const r of [searchLevels(g, rows, {tests: 1e6, work: 1e9}), searchLevels(g, rows, {tests: 1e6, work: 1e9}, guide)]) {
-          if (r.status === 'stopped') failures.push(`case ${c} rows ${rows}: stopped`)
-          else if ((r.status === 'found') !== expected) failures.push(`case ${c} rows ${rows}: ${r.status}, enumeration says ${expected}`)
-          if (r.status === 'found') {
-            const bad = checkFound(g, rows, r.level, r.orders)
-            if (bad) failures.push(`case ${c} rows ${rows}: ${bad}`)
-            found++
-          } else if (r.status === 'none') none++
-        }
+        compareWithEnumeration(g, rows, rand, `case ${c} rows ${rows}`, tally)
       }
     }
-    expect(failures).toEqual([])
-    expect(found).toBeGreaterThan(20)
-    expect(none).toBeGreaterThan(20)
+    expect(tally.failures).toEqual([])
+    expect(tally.found).toBeGreaterThan(20)
+    expect(tally.none).toBeGreaterThan(20)
   })
 
   it('stops within its budget and spends it in place, deterministically', () => {
