@@ -193,8 +193,10 @@ export function searchLevels(g: Digraph, rows: number, budget: LevelSearchBudget
   }
   const STOP = -3
   const SOLVED = -1
-  /** SOLVED, STOP, or the position to go back to (-2: none, the search is over). */
-  /** `untested`: vertices closing a cycle placed since the last test on this path. */
+  /**
+   * SOLVED, STOP, or the position to go back to (-2: none, the search is over). `untested`: vertices
+   * closing a cycle placed since the last test on this path.
+   */
   const place = (i: number, untested = 0): number => {
     if (i === n) return SOLVED
     const v = order[i]!
