@@ -25,17 +25,42 @@
  * once the rest is set, the relation is a strict partial order and any linear extension of it is a
  * solution. Ties are broken towards `rank` (the written order): each component first gets the value
  * that puts its first pair in rank order, and the linear extension takes the leftmost-ranked node it can.
+ *
+ * Forced pairs (`forced`: a must be left of b on their level) fix their component's value before the
+ * search, or set their pair alone when no equation mentions it. Two forced pairs whose component's
+ * equations disagree have no witness, shown by the path of equations between them; otherwise the
+ * search above runs with the forced values kept, and when it runs out of choices without meeting
+ * `maxSteps`, that exhausted search is the proof that no transitive solution respects them. Level
+ * planarity with such constraints is recalled (from memory) as NP-hard in general (Brückner and
+ * Rutter, "Partial and constrained level planarity", SODA 2017), so this search stays bounded by
+ * `maxSteps` and answers `undecided` past it.
  */
 import type {Digraph} from '../graph/digraph.ts'
 
 /** An entry of a level's left-to-right order: a vertex on it, or an edge passing through it. */
 export type LevelItem = {kind: 'vertex'; vertex: number} | {kind: 'edge'; edge: number}
 
+/** A pair the witness must keep: `left` before `right` on `level`; an edge item names its point on that level. */
+export interface ForcedPair {
+  level: number
+  left: LevelItem
+  right: LevelItem
+}
+
 export type LevelPlanarity =
   | {status: 'planar'; orders: LevelItem[][]}
   /** `edges`: input edge ids whose segments make an odd cycle of equations (no drawing of them works). */
   | {status: 'not-planar'; edges: number[]}
   | {status: 'undecided'}
+
+/**
+ * With forced pairs, a fourth answer: level planar, but no drawing keeps them. `proof: 'equations'`:
+ * forced pairs `pairs` (indices into `forced`, two) ask opposite values of one chain of equations,
+ * whose segments belong to `edges` (empty when both name the same two points). `proof: 'search'`:
+ * the bounded search ran through every choice, within `maxSteps`, without a transitive solution;
+ * `pairs` lists every forced pair.
+ */
+export type ForcedLevelPlanarity = LevelPlanarity | {status: 'forced-infeasible'; proof: 'equations' | 'search'; pairs: number[]; edges: number[]}
 
 export interface LevelPlanarityOptions {
   /** Per vertex: its place in the written order (smaller = further left); default the vertex id. */
@@ -61,8 +86,21 @@ export interface LevelPlanarityOptions {
   maxWork?: number
 }
 
-/** Throws RangeError unless every edge goes from a lower to a strictly higher level ≥ 0. */
-export function testLevelPlanarity(graph: Digraph, level: ArrayLike<number>, options: LevelPlanarityOptions = {}): LevelPlanarity {
+export interface ForcedLevelPlanarityOptions extends LevelPlanarityOptions {
+  /**
+   * Pairs the witness must keep in order (see ForcedPair). With them, `decideOnly` still runs the
+   * witness search (the pairs can only be refuted there) but returns no orders.
+   */
+  forced: readonly ForcedPair[]
+}
+
+/**
+ * Throws RangeError unless every edge goes from a lower to a strictly higher level ≥ 0, and unless
+ * each forced pair names two different items that lie on its level.
+ */
+export function testLevelPlanarity(graph: Digraph, level: ArrayLike<number>, options?: LevelPlanarityOptions & {forced?: undefined}): LevelPlanarity
+export function testLevelPlanarity(graph: Digraph, level: ArrayLike<number>, options: ForcedLevelPlanarityOptions): ForcedLevelPlanarity
+export function testLevelPlanarity(graph: Digraph, level: ArrayLike<number>, options: LevelPlanarityOptions & {forced?: readonly ForcedPair[] | undefined} = {}): ForcedLevelPlanarity {
   const n = graph.vertexCount
   const rank = options.rank
   const maxSteps = options.maxSteps ?? 5_000_000
@@ -88,6 +126,8 @@ export function testLevelPlanarity(graph: Digraph, level: ArrayLike<number>, opt
   let maxLevel = 0
   for (let v = 0; v < n; v++) maxLevel = Math.max(maxLevel, level[v]!)
   let dummies = 0
+  /** Node of edge e's first dummy (on level[tail] + 1); the rest follow level by level. */
+  const firstDummy = new Int32Array(graph.edgeCount)
   for (let e = 0; e < graph.edgeCount; e++) {
     const u = graph.tail[e]!
     const w = graph.head[e]!
@@ -99,6 +139,7 @@ export function testLevelPlanarity(graph: Digraph, level: ArrayLike<number>, opt
     const u = graph.tail[e]!
     const w = graph.head[e]!
     let previous = u
+    firstDummy[e] = nodeLevel.length
     for (let l = level[u]! + 1; l < level[w]!; l++) {
       const dummy = nodeLevel.length
       nodeLevel.push(l)
@@ -232,7 +273,11 @@ export function testLevelPlanarity(graph: Digraph, level: ArrayLike<number>, opt
 
   /** Input edges of the odd cycle: both tree paths up to their meeting point, and the closing equation. */
   function oddCycleEdges(x: number, y: number, closing: number): number[] {
-    const equations = [closing]
+    return equationPathEdges(x, y, [closing])
+  }
+
+  /** Input edges of the equations on the tree path between variables x and y of one component, plus `equations`. */
+  function equationPathEdges(x: number, y: number, equations: number[]): number[] {
     let a = x
     let b = y
     const up = (v: number): number => {
@@ -254,7 +299,48 @@ export function testLevelPlanarity(graph: Digraph, level: ArrayLike<number>, opt
     return [...edges].sort((p, q) => p - q)
   }
 
-  if (options.decideOnly) return {status: 'planar', orders: []}
+  // Forced pairs: each as a variable and the value it needs (0: the smaller position on the left).
+  const forced = options.forced ?? []
+  const forcedVar = new Int32Array(forced.length)
+  const forcedValue = new Uint8Array(forced.length)
+  const nodeOf = (item: LevelItem, l: number, p: number): number => {
+    if (item.kind === 'vertex') {
+      if (item.vertex < 0 || item.vertex >= n || nodeLevel[item.vertex] !== l) throw new RangeError(`forced pair ${p}: vertex ${item.vertex} is not on level ${l}`)
+      return item.vertex
+    }
+    const e = item.edge
+    if (e < 0 || e >= graph.edgeCount || l <= level[graph.tail[e]!]! || l >= level[graph.head[e]!]!) throw new RangeError(`forced pair ${p}: edge ${e} does not pass level ${l}`)
+    return firstDummy[e]! + (l - level[graph.tail[e]!]! - 1)
+  }
+  /** Per component, the forced pair that fixed its flip (−1: none yet). */
+  const fixedBy = new Int32Array(componentRoots.length).fill(-1)
+  for (let p = 0; p < forced.length; p++) {
+    const {level: l, left, right} = forced[p]!
+    const a = nodeOf(left, l, p)
+    const b = nodeOf(right, l, p)
+    if (a === b) throw new RangeError(`forced pair ${p} names one item twice`)
+    const [v, value] = literal(a, b)
+    forcedVar[p] = v
+    forcedValue[p] = value
+    const c = component[v]!
+    if (c < 0) continue
+    const q = fixedBy[c]!
+    if (q < 0) fixedBy[c] = p
+    else if ((colour[v]! ^ value) !== (colour[forcedVar[q]!]! ^ forcedValue[q]!)) {
+      return {status: 'forced-infeasible', proof: 'equations', pairs: [q, p], edges: equationPathEdges(forcedVar[q]!, v, [])}
+    }
+  }
+  // Forced pairs that no equation mentions and disagree directly (a before b and b before a).
+  const freeForced = new Map<number, number>()
+  for (let p = 0; p < forced.length; p++) {
+    const v = forcedVar[p]!
+    if (component[v]! >= 0) continue
+    const q = freeForced.get(v)
+    if (q === undefined) freeForced.set(v, p)
+    else if (forcedValue[q] !== forcedValue[p]) return {status: 'forced-infeasible', proof: 'equations', pairs: [q, p], edges: []}
+  }
+
+  if (options.decideOnly && forced.length === 0) return {status: 'planar', orders: []}
 
   // The witness: one value per component, transitivity propagated, backtracking on conflict. A free
   // variable forced by propagation is set on its own (named −1 − variable on the trail).
@@ -294,7 +380,11 @@ export function testLevelPlanarity(graph: Digraph, level: ArrayLike<number>, opt
    * Pending entries are pairs (c, f) for a component, or (−1 − v, value) for a free variable.
    */
   function assign(c: number, f: number): boolean {
-    const pending: number[] = [c, f]
+    return propagate([c, f])
+  }
+
+  /** Work through pending entries (see assign) until none is left; false on conflict. */
+  function propagate(pending: number[]): boolean {
     while (pending.length > 0) {
       const flip = pending.pop()!
       const id = pending.pop()!
@@ -367,6 +457,19 @@ export function testLevelPlanarity(graph: Digraph, level: ArrayLike<number>, opt
       if (2 * ones > memberStart[c + 1]! - memberStart[c]!) prefer[c] = 1
     }
   }
+  /** The search ran out of choices (not of steps): no transitive solution keeps the forced pairs. */
+  const refuted = (): ForcedLevelPlanarity => ({status: 'forced-infeasible', proof: 'search', pairs: forced.map((_, p) => p), edges: []})
+  // The forced values first, below every decision (never undone): a conflict here, before any
+  // choice, already refutes them.
+  if (forced.length > 0) {
+    const pending: number[] = []
+    for (let p = 0; p < forced.length; p++) {
+      const v = forcedVar[p]!
+      if (component[v]! < 0) pending.push(-1 - v, forcedValue[p]!)
+      else pending.push(component[v]!, colour[v]! ^ forcedValue[p]!)
+    }
+    if (!propagate(pending)) return steps > maxSteps ? {status: 'undecided'} : refuted()
+  }
   const choice: number[] = []
   const marks: number[] = []
   let next = 0
@@ -394,6 +497,8 @@ export function testLevelPlanarity(graph: Digraph, level: ArrayLike<number>, opt
       if (steps > maxSteps) return {status: 'undecided'}
     }
     if (!resolved) {
+      // Every choice tried: the forced pairs rule out each transitive solution.
+      if (forced.length > 0) return refuted()
       // The theorem says a transitive solution exists once the equations are satisfiable.
       throw new Error('level planarity: equations satisfiable but no transitive solution found')
     }
@@ -401,6 +506,7 @@ export function testLevelPlanarity(graph: Digraph, level: ArrayLike<number>, opt
     next = -1 - choice.at(-1)!
   }
 
+  if (options.decideOnly) return {status: 'planar', orders: []}
   // The relation set so far is a strict partial order (closed under the propagation); the pairs no
   // equation mentions are free, so any linear extension completes it. Take the one nearest to rank
   // order: always the leftmost-ranked node with nothing unplaced to its left (Kahn, O(k²) a level).
