@@ -15,9 +15,11 @@
  * the written order (edge ids) and a depth-first walk in written order. Each is used as it is when it
  * draws no crossing, and otherwise breaks ties in the level test; a drawing is mirrored when the
  * mirror shows more out-edges in written order. A level drawing smaller than the st-layout but below
- * its written order gets other witnesses of its levels asked for (towardsWrittenOrder), and where
- * none shows more, the out-neighbours of the vertices out of written order lowered (lowerOutNeighbours),
- * within a per-diagram count of tests. Each level drawing is also asked once for a witness whose widest
+ * its written order gets other witnesses of its levels asked for (towardsWrittenOrder); one vertex
+ * short, witnesses with the written order of the vertices that show it and of one more forced
+ * (forcedWrittenOrder); where none shows more, the out-neighbours of the vertices out of written order
+ * lowered (lowerOutNeighbours), and, one vertex short, nearby levels walked to by the forced pairs'
+ * certificates (forcedLevelMoves); all within per-diagram counts of tests. Each level drawing is also asked once for a witness whose widest
  * level packs narrower (narrowerWitness), kept when drawn narrower. A level drawing that shows fewer vertices' out-edges in written
  * order than the st-layout is not kept (unless `keepWrittenOrder` is false), so the choice never
  * undoes the written-order preference of the upward test.
@@ -26,7 +28,8 @@ import {boxHalves, resolveSpacing} from './banded-drawing.ts'
 import {dualOrder} from './dual-order.ts'
 import {layoutLevels} from './level-layout.ts'
 import {levelCandidates, levelTestWork, type LevelCandidateKind, type OrderPreference} from './level-candidates.ts'
-import {testLevelPlanarity, type LevelItem} from '../level/level-planarity.ts'
+import {testLevelPlanarity, type ForcedLevelPlanarity, type ForcedPair, type LevelItem} from '../level/level-planarity.ts'
+import {checkLevelDrawing} from '../level/check-level-drawing.ts'
 import {layoutUpward} from './layout-upward.ts'
 import type {Digraph} from '../graph/digraph.ts'
 import type {Layout, LayoutInput} from './types.ts'
@@ -50,6 +53,15 @@ export const SAME_ROWS_GAIN = 0.8
  */
 const REPAIR_TESTS = 24
 const REPAIR_WORK = 500_000
+
+/**
+ * Level tests, and pairs they set up, that forcedWrittenOrder may spend per diagram (its own budget,
+ * so the repair above keeps every test it had); deterministic counts.
+ */
+const FORCED_TESTS = 96
+const FORCED_WORK = 1_000_000
+/** Level tests forcedLevelMoves may spend on one vertex's walk. */
+const FORCED_MOVES_PER_VERTEX = 16
 
 /**
  * Level tests, and pairs they set up, that narrowerWitness may spend per diagram (its own budget, so
@@ -106,6 +118,7 @@ export function layoutCandidates(input: LayoutInput, options: Readonly<SmallestL
   const floor = writtenOrderKept(g, out[0]!.layout)
   const stArea = out[0]!.layout.width * out[0]!.layout.height
   const repair = {tests: REPAIR_TESTS, work: REPAIR_WORK}
+  const forcing: ForcedBudget = {tests: FORCED_TESTS, work: FORCED_WORK, failed: new Map()}
   const narrow = {tests: NARROW_TESTS, work: NARROW_WORK}
   const draw = (level: Int32Array, orders: LevelItem[][]): Layout => layoutLevels({graph: g, level, orders, boxes: input.boxes, flow: input.flow, spacing: input.spacing}).layout
   for (const c of levelCandidates(g, input.st, {preferences, rows})) {
@@ -113,13 +126,14 @@ export function layoutCandidates(input: LayoutInput, options: Readonly<SmallestL
     let orders = writtenOrderFacing(g, level, c.orders)
     let layout = draw(level, orders)
     // Smaller than the st-layout but below its written order (so layoutSmallest would pass it by):
-    // other orders of the same levels that show more of it, else the same drawing with the out-
-    // neighbours of the vertices not in written order lowered, while the repair budget lasts.
+    // other orders of the same levels that show more of it, else (one vertex short) orders that keep
+    // what is in written order and add a vertex, else the same drawing with the out-neighbours of the
+    // vertices not in written order lowered, while the budgets last.
     while (layout.width * layout.height < stArea && writtenOrderKept(g, layout) < floor) {
-      const better = towardsWrittenOrder(g, level, orders, repair)
+      const better = towardsWrittenOrder(g, level, orders, repair) ?? forcedWrittenOrder(g, level, orders, floor, forcing)
       if (better) orders = better
       else {
-        const lowered = lowerOutNeighbours(g, level, orders, repair)
+        const lowered = lowerOutNeighbours(g, level, orders, repair) ?? forcedLevelMoves(g, level, orders, floor, forcing)
         if (!lowered) break
         ;({level, orders} = lowered)
       }
@@ -211,6 +225,141 @@ export function towardsWrittenOrder(g: Digraph, level: Int32Array, orders: Level
 }
 
 /**
+ * Orders of the same levels one vertex further in written order, by forced pairs: for orders that
+ * show one vertex fewer than `floor` with its out-edges in written order, the level test is asked
+ * for a witness that keeps the out-edges of every vertex already in written order and of one more
+ * (each vertex out of written order in turn): the next objects of a vertex's out-edges on the level
+ * above (what the ports follow, see writtenOrderCounts), each consecutive pair in written order,
+ * forced left to right; the current orders are the preference. A witness is re-checked
+ * (checkLevelDrawing, and the count on its orders) before it is returned. Undefined when the orders
+ * are not exactly one vertex short, no witness is found, or the budget is spent (one level test per
+ * vertex tried, counted against `budget`). Constrained level planarity is NP-hard in general, so
+ * each test is bounded (level-planarity.ts); O(n + m log m) per try besides the test.
+ */
+export function forcedWrittenOrder(g: Digraph, level: Int32Array, orders: LevelItem[][], floor: number, budget: ForcedBudget): LevelItem[][] | undefined {
+  const {forward, wrong} = writtenOrderCounts(g, level, orders)
+  if (forward + 1 !== floor || wrong.length === 0) return undefined
+  const out = new Set(wrong)
+  const base: ForcedPair[] = []
+  for (let v = 0; v < g.vertexCount; v++) if (g.outStart[v + 1]! - g.outStart[v]! >= 2 && !out.has(v)) base.push(...writtenPairs(g, level, v))
+  const preference = {...placesOf(g, orders), majority: true}
+  const work = levelTestWork(g, level)
+  for (const v of wrong) {
+    const r = forcedTest(g, level, preference, budget, [...base, ...writtenPairs(g, level, v)], work)
+    if (!r) return undefined
+    if (r.status !== 'planar') continue
+    const facing = writtenOrderFacing(g, level, r.orders)
+    if (writtenOrderCounts(g, level, facing).forward >= floor && checkLevelDrawing(g, level, facing).ok) return facing
+  }
+  return undefined
+}
+
+/**
+ * Where no orders of these levels keep the written order of one more vertex (forcedWrittenOrder
+ * proved it or ran out): nearby levels that do. For each vertex out of written order in turn, a
+ * breadth-first walk over level assignments from these levels: each is asked for a witness with the
+ * same forced pairs (recomputed for its levels); when the test answers that the forced pairs
+ * disagree through a chain of equations, each end of that chain's edges moved one level up or down
+ * (within its neighbours' levels and the current rows) is a next assignment, unless seen before.
+ * The first witness found is re-checked (checkLevelDrawing and the count on its orders) and
+ * returned with its levels (empty levels removed). At most `perVertex` tests per vertex, each counted
+ * against `budget`; undefined when none is found. A local search, not exhaustive.
+ */
+export function forcedLevelMoves(g: Digraph, level: Int32Array, orders: LevelItem[][], floor: number, budget: ForcedBudget, perVertex = FORCED_MOVES_PER_VERTEX): {level: Int32Array; orders: LevelItem[][]} | undefined {
+  const {forward, wrong} = writtenOrderCounts(g, level, orders)
+  if (forward + 1 !== floor || wrong.length === 0) return undefined
+  const out = new Set(wrong)
+  const kept: number[] = []
+  for (let v = 0; v < g.vertexCount; v++) if (g.outStart[v + 1]! - g.outStart[v]! >= 2 && !out.has(v)) kept.push(v)
+  let top = 0
+  for (const l of level) top = Math.max(top, l)
+  const preference = {...placesOf(g, orders), majority: true}
+  for (const v of wrong) {
+    const seen = new Set<string>([level.join(',')])
+    const queue: Int32Array[] = [level]
+    let tests = 0
+    for (let q = 0; q < queue.length && tests < perVertex; q++) {
+      const at = queue[q]!
+      const forced = [...kept, v].flatMap((u) => writtenPairs(g, at, u))
+      tests++
+      const r = forcedTest(g, at, preference, budget, forced)
+      if (!r) return undefined
+      if (r.status === 'planar') {
+        const index = new Map(Array.from(new Set(at)).sort((a, b) => a - b).map((l, i) => [l, i]))
+        const next = Int32Array.from(at, (l) => index.get(l)!)
+        // Empty levels dropped: the same orders without them.
+        const facing = writtenOrderFacing(g, next, r.orders.filter((items) => items.length > 0))
+        if (writtenOrderCounts(g, next, facing).forward >= floor && checkLevelDrawing(g, next, facing).ok) return {level: next, orders: facing}
+        continue
+      }
+      if (r.status !== 'forced-infeasible' || r.edges.length === 0) continue
+      const ends = new Set<number>()
+      for (const e of r.edges) ends.add(g.tail[e]!).add(g.head[e]!)
+      for (const x of [...ends].sort((a, b) => a - b)) {
+        let low = 0
+        let high = top
+        for (let i = g.inStart[x]!; i < g.inStart[x + 1]!; i++) low = Math.max(low, at[g.tail[g.inEdges[i]!]!]! + 1)
+        for (let i = g.outStart[x]!; i < g.outStart[x + 1]!; i++) high = Math.min(high, at[g.head[g.outEdges[i]!]!]! - 1)
+        for (const to of [at[x]! - 1, at[x]! + 1]) {
+          if (to < low || to > high) continue
+          const next = at.slice()
+          next[x] = to
+          const key = next.join(',')
+          if (seen.has(key)) continue
+          seen.add(key)
+          queue.push(next)
+        }
+      }
+    }
+  }
+  return undefined
+}
+
+/**
+ * The budget of forcedWrittenOrder and forcedLevelMoves, and the answers other than planar they met
+ * (by levels and forced pairs): several candidates of a diagram share levels, and the walks meet the
+ * same assignments again, so each is paid for once.
+ */
+interface ForcedBudget {
+  tests: number
+  work: number
+  failed: Map<string, ForcedLevelPlanarity>
+}
+
+/** paidLevelTest with forced pairs, an answer other than planar remembered (then free) in `budget.failed`. */
+function forcedTest(g: Digraph, level: Int32Array, preference: {rank: Float64Array; edgeRank: Float64Array; majority: boolean}, budget: ForcedBudget, forced: readonly ForcedPair[], work = levelTestWork(g, level)): ForcedLevelPlanarity | undefined {
+  const item = (i: LevelItem): string => (i.kind === 'vertex' ? `v${i.vertex}` : `e${i.edge}`)
+  const key = `${level.join(',')}|${forced.map((p) => `${p.level}:${item(p.left)}<${item(p.right)}`).join(' ')}`
+  const known = budget.failed.get(key)
+  if (known) return known
+  const r = paidLevelTest(g, level, preference, budget, work, forced)
+  if (r && r.status !== 'planar') budget.failed.set(key, r)
+  return r
+}
+
+/**
+ * The pairs that put vertex v's out-edges left to right in written order: the point where each
+ * out-edge meets the level above v (its head, or its bend there), consecutive edges by id. Two edges
+ * to one head share their point (the ports then follow the ids anyway) and give no pair.
+ */
+function writtenPairs(g: Digraph, level: ArrayLike<number>, v: number): ForcedPair[] {
+  const above = level[v]! + 1
+  const nextItem = (e: number): LevelItem => {
+    const h = g.head[e]!
+    return level[h] === above ? {kind: 'vertex', vertex: h} : {kind: 'edge', edge: e}
+  }
+  const edges = Array.from(g.outEdges.subarray(g.outStart[v]!, g.outStart[v + 1]!)).sort((a, b) => a - b)
+  const pairs: ForcedPair[] = []
+  for (let i = 1; i < edges.length; i++) {
+    const left = nextItem(edges[i - 1]!)
+    const right = nextItem(edges[i]!)
+    if (left.kind === 'vertex' && right.kind === 'vertex' && left.vertex === right.vertex) continue
+    pairs.push({level: above, left, right})
+  }
+  return pairs
+}
+
+/**
  * When no witness of these levels shows more written order: the out-neighbours of each vertex not in
  * written order moved down to the lowest level their in-edges allow, and the level test asked for
  * orders of the new levels with the current ones as the preference (as in towardsWrittenOrder).
@@ -246,21 +395,23 @@ export function lowerOutNeighbours(g: Digraph, level: Int32Array, orders: LevelI
 }
 
 /**
- * One level test with these preferred places, paid from `budget`: one test, and the pairs it sets up
- * as levelTestWork counts them (`work`, when the caller has it already). Undefined, and nothing
- * spent, when the budget cannot pay.
+ * One level test with these preferred places (and forced pairs, if any), paid from `budget`: one
+ * test, and the pairs it sets up as levelTestWork counts them (`work`, when the caller has it
+ * already). Undefined, and nothing spent, when the budget cannot pay.
  */
 function paidLevelTest(
   g: Digraph,
   level: Int32Array,
   preference: {rank: Float64Array; edgeRank: Float64Array; majority: boolean},
   budget: {tests: number; work: number},
-  work = levelTestWork(g, level)
-): ReturnType<typeof testLevelPlanarity> | undefined {
+  work = levelTestWork(g, level),
+  forced?: readonly ForcedPair[]
+): ForcedLevelPlanarity | undefined {
   if (budget.tests < 1 || work > budget.work) return undefined
   budget.tests--
   budget.work -= work
-  return testLevelPlanarity(g, level, {...preference, maxWork: 250_000, maxSteps: 250_000})
+  const limits = {...preference, maxWork: 250_000, maxSteps: 250_000}
+  return forced ? testLevelPlanarity(g, level, {...limits, forced}) : testLevelPlanarity(g, level, limits)
 }
 
 /** Each level's places scaled to [0, 1]: a vertex at its place, an edge at the mean of its places. */
