@@ -5,11 +5,14 @@
  * that draw no crossing and keep every forced pair decide the expected answer. Whenever the test does
  * not answer `undecided` it must agree; each witness is re-checked (this file's crossing test, the
  * forced pairs, and checkLevelDrawing), and each `equations` certificate is re-checked by the same
- * enumeration on its edges alone with its two pairs.
+ * enumeration on its edges alone with its two pairs. The written-order repair built on it
+ * (forcedWrittenOrder, smallest-layout.ts) against the same enumeration: it finds orders exactly when
+ * some crossing-free drawing keeps the vertices already in written order and one more.
  */
 import {describe, expect, it} from 'vitest'
 import {checkLevelDrawing, createDigraph} from '@upright/core'
 import {testLevelPlanarity, type ForcedPair, type LevelItem} from '../src/level/level-planarity.ts'
+import {forcedWrittenOrder} from '../src/layout/smallest-layout.ts'
 
 function prng(seed: number): () => number {
   let s = seed >>> 0
@@ -241,5 +244,58 @@ describe('testLevelPlanarity with forced pairs against brute force', () => {
     expect(() => testLevelPlanarity(graph, [0, 0, 2], {forced: [{level: 1, left: {kind: 'vertex', vertex: 0}, right: {kind: 'edge', edge: 1}}]})).toThrow(RangeError)
     expect(() => testLevelPlanarity(graph, [0, 0, 2], {forced: [{level: 2, left: {kind: 'edge', edge: 0}, right: {kind: 'vertex', vertex: 2}}]})).toThrow(RangeError)
     expect(() => testLevelPlanarity(graph, [0, 0, 2], {forced: [{level: 0, left: {kind: 'vertex', vertex: 0}, right: {kind: 'vertex', vertex: 0}}]})).toThrow(RangeError)
+  })
+})
+
+/** Vertices with two or more out-edges whose out-edges meet the level above left to right in id order (ties: one point). */
+function inWrittenOrder(edges: Edge[], level: number[], orders: LevelItem[][]): Set<number> {
+  const at = new Map<string, number>()
+  orders.forEach((items, l) => items.forEach((item, i) => at.set(`${l}:${key(item)}`, i)))
+  const outs = new Map<number, number[]>()
+  edges.forEach(([u], e) => outs.set(u, [...(outs.get(u) ?? []), e]))
+  const kept = new Set<number>()
+  for (const [u, es] of outs) {
+    if (es.length < 2) continue
+    const place = (e: number): number => at.get(`${level[u]! + 1}:${level[edges[e]![1]] === level[u]! + 1 ? `v${edges[e]![1]}` : `e${e}`}`)!
+    if (es.every((e, i) => i === 0 || place(es[i - 1]!) <= place(e))) kept.add(u)
+  }
+  return kept
+}
+
+describe('forcedWrittenOrder (smallest-layout.ts) against brute force', () => {
+  it('finds orders with one vertex more in written order exactly when some crossing-free drawing keeps those already in it and one more (400 random level graphs)', () => {
+    const random = prng(4711)
+    let cases = 0
+    let found = 0
+    while (cases < 400) {
+      const {edges, level} = randomLevelGraph(random)
+      if (orderSpace(edges, level) > 20_000) continue
+      const graph = createDigraph(level.length, edges)
+      const start = testLevelPlanarity(graph, level, {rank: level.map(() => Math.floor(random() * 5))})
+      if (start.status !== 'planar') continue
+      const kept = inWrittenOrder(edges, level, start.orders)
+      const several = [...new Set(edges.map(([u]) => u))].filter((u) => edges.filter(([t]) => t === u).length >= 2)
+      const wrong = several.filter((u) => !kept.has(u))
+      if (wrong.length === 0) continue
+      cases++
+      const expected = crossingFreeOrders(edges, level).some((orders) => {
+        const now = inWrittenOrder(edges, level, orders)
+        return [...kept].every((u) => now.has(u)) && wrong.some((u) => now.has(u))
+      })
+      const floor = kept.size + 1
+      const result = forcedWrittenOrder(graph, Int32Array.from(level), start.orders, floor, {tests: 1000, work: 1e9, failed: new Map()})
+      const context = JSON.stringify({edges, level, orders: start.orders})
+      expect(result !== undefined, context).toBe(expected)
+      if (result) {
+        found++
+        expect(checkLevelDrawing(graph, level, result)).toEqual({ok: true})
+        expect(drawsNoCrossing(edges, level, result)).toBe(true)
+        // Possibly mirrored: then the count is read right to left.
+        const mirrored = result.map((items) => items.slice().reverse())
+        expect(Math.max(inWrittenOrder(edges, level, result).size, inWrittenOrder(edges, level, mirrored).size), context).toBeGreaterThanOrEqual(floor)
+      }
+    }
+    expect(found).toBeGreaterThan(50)
+    expect(cases - found).toBeGreaterThan(20)
   })
 })
