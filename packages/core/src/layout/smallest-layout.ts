@@ -285,10 +285,12 @@ export function forcedLevelMoves(g: Digraph, level: Int32Array, orders: LevelIte
       const r = forcedTest(g, at, preference, budget, forced)
       if (!r) return undefined
       if (r.status === 'planar') {
-        const index = new Map(Array.from(new Set(at)).sort((a, b) => a - b).map((l, i) => [l, i]))
+        const used = new Set(at)
+        const index = new Map(Array.from(used).sort((a, b) => a - b).map((l, i) => [l, i]))
         const next = Int32Array.from(at, (l) => index.get(l)!)
-        // Empty levels dropped: the same orders without them.
-        const facing = writtenOrderFacing(g, next, r.orders.filter((items) => items.length > 0))
+        // Levels without a vertex dropped, with the bends on them: the orders of the others stay
+        // crossing-free (the bends kept their order across the dropped level).
+        const facing = writtenOrderFacing(g, next, r.orders.filter((_, l) => used.has(l)))
         if (writtenOrderCounts(g, next, facing).forward >= floor && checkLevelDrawing(g, next, facing).ok) return {level: next, orders: facing}
         continue
       }
