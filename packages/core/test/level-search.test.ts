@@ -32,8 +32,8 @@ function randomDag(rand: () => number, n: number, p: number): Digraph {
   return createDigraph(n, edges)
 }
 
-/** Whether some assignment within `rows` levels is level planar, by enumeration. */
-function existsByEnumeration(g: Digraph, rows: number): boolean {
+/** Whether some assignment within `rows` levels (and that `accept` takes) is level planar, by enumeration. */
+function existsByEnumeration(g: Digraph, rows: number, accept: (level: Int32Array) => boolean = () => true): boolean {
   const n = g.vertexCount
   const up = longestPathUp(g)
   const down = longestPathToSinks(g)
@@ -41,7 +41,7 @@ function existsByEnumeration(g: Digraph, rows: number): boolean {
   const go = (v: number): boolean => {
     if (v === n) {
       for (let e = 0; e < g.edgeCount; e++) if (level[g.head[e]!]! <= level[g.tail[e]!]!) return false
-      return testLevelPlanarity(g, level).status === 'planar'
+      return accept(level) && testLevelPlanarity(g, level).status === 'planar'
     }
     for (let l = up[v]!; l <= rows - 1 - down[v]!; l++) {
       level[v] = l
@@ -127,6 +127,57 @@ describe('searchLevels against exhaustive enumeration', () => {
     expect(tally.failures).toEqual([])
     expect(tally.found).toBeGreaterThan(20)
     expect(tally.none).toBeGreaterThan(20)
+  })
+
+  it('with a bound on the row widths, agrees with enumeration of the assignments that keep it', () => {
+    // Each row's width counted here on its own terms: every box on it plus the box gap, and the edge
+    // gap for each edge passing through it; the bound is drawn between the narrowest and the widest
+    // level-planar assignment's widest row (and at the narrowest, where none is narrower). The edge
+    // gap is large (50) and the rows up to two above the longest path, so passing edges often decide
+    // (leaving their ends out of the culprits makes the search answer a wrong "none" here).
+    const rand = prng(20261204)
+    const failures: string[] = []
+    let found = 0
+    let none = 0
+    for (let c = 0; c < 300; c++) {
+      const n = 5 + Math.floor(rand() * 5)
+      const g = randomDag(rand, n, 0.25 + rand() * 0.35)
+      if (g.edgeCount === 0) continue
+      const across = Array.from({length: n}, () => 20 + Math.floor(rand() * 60))
+      const widest = (level: Int32Array): number => {
+        const rows = new Map<number, number>()
+        for (let v = 0; v < n; v++) rows.set(level[v]!, (rows.get(level[v]!) ?? 0) + across[v]! + 24)
+        for (let e = 0; e < g.edgeCount; e++) for (let r = level[g.tail[e]!]! + 1; r < level[g.head[e]!]!; r++) rows.set(r, (rows.get(r) ?? 0) + 50)
+        return Math.max(...rows.values())
+      }
+      const rows = Math.max(...longestPathUp(g)) + 1 + Math.floor(rand() * 3)
+      const widths: number[] = []
+      existsByEnumeration(g, rows, (level) => {
+        if (testLevelPlanarity(g, level).status === 'planar') widths.push(widest(level))
+        return false
+      })
+      if (widths.length === 0) continue
+      const lo = Math.min(...widths)
+      const hi = Math.max(...widths)
+      for (const below of [lo, lo + 1 + Math.floor(rand() * (hi - lo + 1))]) {
+        const expected = widths.some((w) => w < below)
+        const guide = Int32Array.from({length: n}, () => Math.floor(rand() * rows))
+        for (const r of [searchLevels(g, rows, {tests: 1e6, work: 1e9}, undefined, {across, nodeGap: 24, edgeGap: 50, below}), searchLevels(g, rows, {tests: 1e6, work: 1e9}, guide, {across, nodeGap: 24, edgeGap: 50, below})]) {
+          const label = `case ${c} rows ${rows} below ${below}`
+          if (r.status === 'stopped') failures.push(`${label}: stopped`)
+          else if ((r.status === 'found') !== expected) failures.push(`${label}: ${r.status}, enumeration says ${expected}`)
+          if (r.status === 'found') {
+            found++
+            const bad = checkFound(g, rows, r.level, r.orders)
+            if (bad) failures.push(`${label}: ${bad}`)
+            if (widest(r.level) >= below) failures.push(`${label}: widest row ${widest(r.level)}, not below ${below}`)
+          } else if (r.status === 'none') none++
+        }
+      }
+    }
+    expect(failures).toEqual([])
+    expect(found).toBeGreaterThan(100)
+    expect(none).toBeGreaterThan(100)
   })
 
   it('stops within its budget and spends it in place, deterministically', () => {

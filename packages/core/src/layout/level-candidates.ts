@@ -34,7 +34,8 @@
  *    (level-search.ts) for a level-planar assignment, first near that assignment, then without a
  *    guide; repeated one row lower while it finds one, down to G's longest path; its own budget
  *    (`search`), so it never takes tests from the others. Past them because it costs the most per
- *    row it gains.
+ *    row it gains. Then, with `rows`, at the row count reached, the same search with a bound on the
+ *    rows' widths for a narrower assignment (searchFewerRows), not evened out again.
  * A "no" from the test only rules out that candidate; every level test is bounded by `maxWork`
  * (pairs set up) and `maxSteps` (witness search), all of them together by `workBudget` (pairs set
  * up), deterministic counts, and `undecided` counts as no.
@@ -47,7 +48,7 @@ import {testLevelPlanarity, type LevelItem, type LevelPlanarity, type LevelPlana
 import type {StAugmentation} from '../augment/index.ts'
 import {balanceRows} from './balance-rows.ts'
 import {layerByWeightedSpan, longestPathToSinks, longestPathUp, topologicalOrder} from './layering.ts'
-import {searchLevels, type LevelSearch} from './level-search.ts'
+import {searchLevels, widestRow, type LevelSearch} from './level-search.ts'
 
 /**
  * Level tests, and pairs they set up, that the searched candidate (8. above) may spend per diagram;
@@ -63,6 +64,17 @@ const SEARCH_WORK = 750_000
  * guided), a few unguided within about ten (g.36.7). 72 and 56 against 52 and 40: 2 drawn smaller
  * (g.31.0 2.128 -> 1.682 of dagre's area), none larger, 1.04x the CPU (bench/README.md).
  */
+/**
+ * Of those, the level tests, and levels tried (a width bound rules levels out without a test), that
+ * the search for narrower rows at the final row count (searchFewerRows) may spend per diagram; and
+ * by how much each find must be narrower than the last. On the North DAGs (2026-12-02, scratch, the
+ * bench's boxes and dagre drawings): 8 tests and 300 levels drew 162 graphs smaller, 8 of them from
+ * above dagre's area to under it, at 1.07x the CPU; 12 and 500 186 and 8 at 1.17x; 24 and 1,000 207
+ * and 11 at 1.32x (bench/README.md).
+ */
+const SEARCH_WIDTH_TESTS = 8
+const SEARCH_WIDTH_STEPS = 300
+const WIDTH_STEP = 0.5
 const SEARCH_FIRST_TESTS = 72
 const SEARCH_FIRST_GUIDED = 56
 
@@ -141,7 +153,8 @@ export function levelCandidates(g: Digraph, st: StAugmentation, options: Readonl
     return testLevelPlanarity(g, level, limits(p))
   }
   const test = (level: Int32Array): LevelItem[][] | undefined => ordersFor(level, preferences[0]!)
-  const found: Array<{kind: LevelCandidateKind; level: Int32Array; orders: LevelItem[][]; balanced: boolean}> = []
+  // narrowed: the narrower searched assignment, not evened out again (it is narrow by that measure).
+  const found: Array<{kind: LevelCandidateKind; level: Int32Array; orders: LevelItem[][]; balanced: boolean; narrowed?: boolean}> = []
   const seen: Int32Array[] = []
   const add = (kind: LevelCandidateKind, level: Int32Array, balanced: boolean): void => {
     if (seen.some((s) => sameLevels(s, level))) return
@@ -165,6 +178,8 @@ export function levelCandidates(g: Digraph, st: StAugmentation, options: Readonl
     const rows = options.rows
     if (rows) {
       for (const c of found.slice(from)) {
+        // The narrower searched assignment (searchFewerRows) is already narrow by the same measure.
+        if (c.narrowed) continue
         const level = balanceRows(g, c.level, rows.across, rows.nodeGap, rows.edgeGap)
         if (level) add(c.kind, level, true)
       }
@@ -198,22 +213,38 @@ export function levelCandidates(g: Digraph, st: StAugmentation, options: Readonl
   }
   const lowered = liftLevels(reversed, options.maxTests ?? 24, (level) => probe(turn(level), preferences[0]!))
   if (lowered) add('lifted', turn(lowered), false)
-  // 8. Searched: rows fixed, from one fewer than the fewest found down, with its own budget.
-  const searched = searchFewerRows(g, found, options.search ?? {tests: SEARCH_TESTS, work: SEARCH_WORK})
-  if (searched && !seen.some((s) => sameLevels(s, searched.level))) {
-    seen.push(searched.level)
-    found.push({kind: 'searched', level: searched.level, orders: test(searched.level) ?? searched.orders, balanced: false})
-  }
+  // 8. Searched: rows fixed, from one fewer than the fewest found down, with its own budget. The
+  // others are expanded first: the searched ones' tests then never take the shared budget from them.
   expand(done)
+  const expanded = found.length
+  const {fewer, narrower} = searchFewerRows(g, found, options.search ?? {tests: SEARCH_TESTS, work: SEARCH_WORK}, options.rows)
+  for (const searched of [fewer, narrower]) {
+    if (!searched || seen.some((s) => sameLevels(s, searched.level))) continue
+    seen.push(searched.level)
+    found.push({kind: 'searched', level: searched.level, orders: test(searched.level) ?? searched.orders, balanced: false, narrowed: searched === narrower})
+  }
+  expand(expanded)
   return out
 }
 
+type Searched = {level: Int32Array; orders: LevelItem[][]}
+
 /**
  * 8. above: while the budget lasts, a level-planar assignment with one row fewer than the fewest
- * found (searchLevels, level-search.ts), down to G's longest path; the last one found, or undefined.
+ * found (searchLevels, level-search.ts), down to G's longest path; `fewer`, the last one found. Then,
+ * with `widths`, at the row count reached (fewer's, else the fewest found): the narrowest assignment
+ * found by searching for one whose widest row (widestRow) is narrower than the narrowest there so far,
+ * near it, each find lowering the bound (branch and bound; ours); `narrower`. Assignments at the same
+ * row count differ much in width (g.23.118: the 8-row drawing kept before was 772 wide, one found
+ * so 510), and the other candidates only move whole rows or single vertices.
  */
-function searchFewerRows(g: Digraph, found: ReadonlyArray<{level: Int32Array}>, budget: {tests: number; work: number}): {level: Int32Array; orders: LevelItem[][]} | undefined {
-  if (found.length === 0) return undefined
+function searchFewerRows(
+  g: Digraph,
+  found: ReadonlyArray<{level: Int32Array}>,
+  budget: {tests: number; work: number},
+  widths?: {across: ArrayLike<number>; nodeGap: number; edgeGap: number}
+): {fewer?: Searched | undefined; narrower?: Searched | undefined} {
+  if (found.length === 0) return {}
   const least = height(longestPathUp(g))
   let guide = found[0]!.level
   for (const c of found) if (height(c.level) < height(guide)) guide = c.level
@@ -226,7 +257,7 @@ function searchFewerRows(g: Digraph, found: ReadonlyArray<{level: Int32Array}>, 
     budget.work -= start.work - part.work
     return r
   }
-  let best: {level: Int32Array; orders: LevelItem[][]} | undefined
+  let best: Searched | undefined
   while (height(guide) > least) {
     // The first row is capped (SEARCH_FIRST_TESTS): most searches that find one do so within a few
     // tests, and most that do not would spend the whole budget. Each row: first near the fewest-row
@@ -241,7 +272,34 @@ function searchFewerRows(g: Digraph, found: ReadonlyArray<{level: Int32Array}>, 
     best = r
     guide = r.level
   }
-  return best
+  if (!widths) return {fewer: best}
+  // With what is left, at the final row count: assignments whose widest row (widestRow) is narrower
+  // than the narrowest one there so far, near it, each find tightening the bound (branch and bound).
+  const rows = height(guide)
+  let ref = guide
+  let below = widestRow(g, ref, widths.across, widths.nodeGap, widths.edgeGap)
+  for (const c of found) {
+    if (height(c.level) !== rows) continue
+    const w = widestRow(g, c.level, widths.across, widths.nodeGap, widths.edgeGap)
+    if (w < below) [ref, below] = [c.level, w]
+  }
+  let narrower: Searched | undefined
+  const left = {tests: SEARCH_WIDTH_TESTS, steps: SEARCH_WIDTH_STEPS}
+  while (budget.tests > 0 && left.tests > 0 && left.steps > 0) {
+    const before = budget.tests
+    const r = within(left.tests, (part) => {
+      const counted = {...part, steps: left.steps}
+      const answer = searchLevels(g, rows, counted, ref, {...widths, below: below - WIDTH_STEP})
+      ;[part.tests, part.work, left.steps] = [counted.tests, counted.work, counted.steps!]
+      return answer
+    })
+    left.tests -= before - budget.tests
+    if (r.status !== 'found') break
+    narrower = r
+    ref = r.level
+    below = widestRow(g, ref, widths.across, widths.nodeGap, widths.edgeGap)
+  }
+  return {fewer: best, narrower}
 }
 
 /** Levels used: one more than the highest. */

@@ -27,6 +27,11 @@
  * those, not to the vertex placed just before. Each odd cycle is also kept (nogood recording), so the
  * same levels of its ends met again later are ruled out without a test.
  *
+ * With a bound on the rows' widths (RowWidthBound), a level that makes a row of the placed part as
+ * wide as the bound is ruled out without a test (rows only widen as vertices are placed), its
+ * culprits the placed vertices on that row and the ends of the placed edges passing it; so a "none"
+ * says no level-planar assignment has every row narrower (branch and bound on the widest row).
+ *
  * Levels tried first: with `guide`, those nearest the guide's level of the vertex (a known assignment
  * with one row more keeps most vertices where they are); then the least total span of the edges to
  * placed neighbours; then the lower.
@@ -57,6 +62,35 @@ const TEST_EVERY = 2
 export interface LevelSearchBudget {
   tests: number
   work: number
+  /**
+   * Levels tried (placements, tested or not), when given. A width bound rules levels out without a
+   * test, so with one only this count bounds the search.
+   */
+  steps?: number
+}
+
+/**
+ * A bound on the rows' widths, each estimated as balance-rows.ts does: every box's extent across the
+ * flow plus the gap between boxes, and the edge gap for each edge passing through the row.
+ */
+export interface RowWidthBound {
+  across: ArrayLike<number>
+  nodeGap: number
+  edgeGap: number
+  /** Every row must stay narrower than this. */
+  below: number
+}
+
+/** The widest row of an assignment, by the estimate of RowWidthBound. O(n + m + L · m) at worst. */
+export function widestRow(g: Digraph, level: ArrayLike<number>, across: ArrayLike<number>, nodeGap: number, edgeGap: number): number {
+  let height = 0
+  for (let v = 0; v < g.vertexCount; v++) height = Math.max(height, level[v]! + 1)
+  const row = new Float64Array(height)
+  for (let v = 0; v < g.vertexCount; v++) row[level[v]!]! += across[v]! + nodeGap
+  for (let e = 0; e < g.edgeCount; e++) for (let r = level[g.tail[e]!]! + 1; r < level[g.head[e]!]!; r++) row[r]! += edgeGap
+  let widest = 0
+  for (const w of row) widest = Math.max(widest, w)
+  return widest
 }
 
 /** Longest path length from each vertex to every other (-1: no path). O(n · (n + m)). */
@@ -120,8 +154,9 @@ function placingOrder(g: Digraph, up: Int32Array, down: Int32Array): number[] {
 /**
  * A level-planar assignment of G within `rows` levels (levels left empty removed), or a proof that
  * none exists, or 'stopped' when `budget` runs out (spent in place). `guide`: levels to stay near.
+ * `bound`: only assignments whose rows all stay narrower (a "none" then says none of those exists).
  */
-export function searchLevels(g: Digraph, rows: number, budget: LevelSearchBudget, guide?: ArrayLike<number>): LevelSearch {
+export function searchLevels(g: Digraph, rows: number, budget: LevelSearchBudget, guide?: ArrayLike<number>, bound?: RowWidthBound): LevelSearch {
   const n = g.vertexCount
   const topo = topologicalOrder(g)
   const up = longestPathUp(g, topo)
@@ -191,6 +226,39 @@ export function searchLevels(g: Digraph, rows: number, budget: LevelSearchBudget
     }
     return undefined
   }
+  // Row widths of the placed part (with `bound`): a row only widens as vertices are placed, so a
+  // row at or past the bound rules the partial assignment out, and its culprits are the placed
+  // vertices on it and the ends of the placed edges passing through it.
+  const width = bound ? new Float64Array(rows) : undefined
+  /** Adds (sign 1) or takes away (-1) v's box at l and its edges to `placed`; the first row at or past the bound, or -1. */
+  const widen = (v: number, l: number, placed: number[], sign: number): number => {
+    const w = width!
+    const b = bound!
+    let over = -1
+    w[l]! += sign * (b.across[v]! + b.nodeGap)
+    if (w[l]! >= b.below) over = l
+    for (const u of placed) {
+      const lo = Math.min(l, level[u]!)
+      const hi = Math.max(l, level[u]!)
+      for (let r = lo + 1; r < hi; r++) {
+        w[r]! += sign * b.edgeGap
+        if (over < 0 && w[r]! >= b.below) over = r
+      }
+    }
+    return over
+  }
+  /** Positions below i that put a box on row r or an edge through it. O(n + m). */
+  const widthCulprits = (r: number, i: number): number[] => {
+    const out: number[] = []
+    for (let j = 0; j < i; j++) if (level[order[j]!] === r) out.push(j)
+    for (let e = 0; e < g.edgeCount; e++) {
+      const a = position[g.tail[e]!]!
+      const b = position[g.head[e]!]!
+      if (a > i || b > i) continue
+      if (level[g.tail[e]!]! < r && r < level[g.head[e]!]!) for (const p of [a, b]) if (p < i) out.push(p)
+    }
+    return out
+  }
   const STOP = -3
   const SOLVED = -1
   /**
@@ -230,32 +298,46 @@ export function searchLevels(g: Digraph, rows: number, budget: LevelSearchBudget
     const near = (l: number): number => (guide ? Math.abs(l - guide[v]!) : 0)
     levels.sort((a, b) => near(a) - near(b) || span(a) - span(b) || a - b)
     for (const l of levels) {
+      if (budget.steps !== undefined && budget.steps-- < 1) return STOP
       level[v] = l
       const known = matching(i)
       if (known) {
         for (let k = 0; k < known.length; k += 2) if (known[k] !== i) mine.add(known[k]!)
         continue
       }
-      // A vertex joined to the placed part by one edge or none rarely makes it non-planar, and of
-      // those that close a cycle only every TEST_EVERY-th is tested: an untested one is checked with
-      // the next vertex tested (the last one always is), and a cycle through it names it as a
-      // culprit, so the jump goes back to it as if it had been tested.
-      const closes = placed.length >= 2
-      const untestedHere = i + 1 < n && (!closes || untested + 1 < TEST_EVERY)
-      const answer = untestedHere || test(i + 1)
-      if (answer === undefined) return STOP
-      if (answer !== true) {
-        record(answer)
-        for (const p of answer) if (p !== i) mine.add(p)
-        // A cycle without v rules out every level of v.
-        if (!answer.includes(i)) break
-        continue
+      if (width) {
+        const over = widen(v, l, placed, 1)
+        if (over >= 0) {
+          widen(v, l, placed, -1)
+          for (const p of widthCulprits(over, i)) mine.add(p)
+          continue
+        }
       }
-      const next = place(i + 1, untestedHere ? untested + (closes ? 1 : 0) : 0)
-      if (next === SOLVED || next === STOP) return next
-      if (next < i) {
-        level[v] = -1
-        return next
+      try {
+        // A vertex joined to the placed part by one edge or none rarely makes it non-planar, and of
+        // those that close a cycle only every TEST_EVERY-th is tested: an untested one is checked with
+        // the next vertex tested (the last one always is), and a cycle through it names it as a
+        // culprit, so the jump goes back to it as if it had been tested.
+        const closes = placed.length >= 2
+        const untestedHere = i + 1 < n && (!closes || untested + 1 < TEST_EVERY)
+        const answer = untestedHere || test(i + 1)
+        if (answer === undefined) return STOP
+        if (answer !== true) {
+          record(answer)
+          for (const p of answer) if (p !== i) mine.add(p)
+          // A cycle without v rules out every level of v.
+          if (!answer.includes(i)) break
+          continue
+        }
+        const next = place(i + 1, untestedHere ? untested + (closes ? 1 : 0) : 0)
+        if (next === SOLVED || next === STOP) return next
+        if (next < i) {
+          level[v] = -1
+          return next
+        }
+      } finally {
+        // Every way out of this level (a failure, a jump back past v) takes v's widths away again.
+        if (width) widen(v, l, placed, -1)
       }
     }
     level[v] = -1
