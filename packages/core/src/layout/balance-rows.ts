@@ -28,7 +28,7 @@ export function balanceRows(g: Digraph, level: Int32Array, across: ArrayLike<num
   for (let v = 0; v < n; v++) height = Math.max(height, level[v]! + 1)
   if (height < 2) return undefined
   const lv = level.slice()
-  const row = new Float64Array(height)
+  const row = rowWidths(g, lv, across, nodeGap, edgeGap)
   const addVertex = (v: number, l: number, sign: number): void => {
     row[l]! += sign * (across[v]! + nodeGap)
     for (let p = g.inStart[v]!; p < g.inStart[v + 1]!; p++) {
@@ -40,9 +40,6 @@ export function balanceRows(g: Digraph, level: Int32Array, across: ArrayLike<num
       for (let r = l + 1; r < lv[w]!; r++) row[r]! += sign * edgeGap
     }
   }
-  // Box contributions once per vertex, bends once per edge (from the tail's side only).
-  for (let v = 0; v < n; v++) row[lv[v]!]! += across[v]! + nodeGap
-  for (let e = 0; e < g.edgeCount; e++) for (let r = lv[g.tail[e]!]! + 1; r < lv[g.head[e]!]!; r++) row[r]! += edgeGap
   const score = (): [number, number] => {
     let max = 0
     let squares = 0
@@ -93,4 +90,17 @@ export function balanceRows(g: Digraph, level: Int32Array, across: ArrayLike<num
   const renumber = new Int32Array(height)
   for (let l = 0, k = 0; l < height; l++) renumber[l] = used[l] ? k++ : -1
   return lv.map((l) => renumber[l]!)
+}
+
+/**
+ * Each row's estimated width: every box's extent across the flow plus the gap between boxes, and the
+ * edge gap for each edge passing through the row. Boxes once per vertex, bends once per edge. O(n + m · L).
+ */
+export function rowWidths(g: Digraph, level: ArrayLike<number>, across: ArrayLike<number>, nodeGap: number, edgeGap: number): Float64Array {
+  let height = 0
+  for (let v = 0; v < g.vertexCount; v++) height = Math.max(height, level[v]! + 1)
+  const row = new Float64Array(height)
+  for (let v = 0; v < g.vertexCount; v++) row[level[v]!]! += across[v]! + nodeGap
+  for (let e = 0; e < g.edgeCount; e++) for (let r = level[g.tail[e]!]! + 1; r < level[g.head[e]!]!; r++) row[r]! += edgeGap
+  return row
 }

@@ -44,6 +44,7 @@ import {createDigraph, type Digraph} from '../graph/digraph.ts'
 import {testLevelPlanarity, type LevelItem} from '../level/level-planarity.ts'
 import {levelTestWork} from './level-candidates.ts'
 import {longestPathToSinks, longestPathUp, topologicalOrder} from './layering.ts'
+import {rowWidths} from './balance-rows.ts'
 
 export type LevelSearch =
   | {status: 'found'; level: Int32Array; orders: LevelItem[][]}
@@ -83,13 +84,8 @@ export interface RowWidthBound {
 
 /** The widest row of an assignment, by the estimate of RowWidthBound. O(n + m + L · m) at worst. */
 export function widestRow(g: Digraph, level: ArrayLike<number>, across: ArrayLike<number>, nodeGap: number, edgeGap: number): number {
-  let height = 0
-  for (let v = 0; v < g.vertexCount; v++) height = Math.max(height, level[v]! + 1)
-  const row = new Float64Array(height)
-  for (let v = 0; v < g.vertexCount; v++) row[level[v]!]! += across[v]! + nodeGap
-  for (let e = 0; e < g.edgeCount; e++) for (let r = level[g.tail[e]!]! + 1; r < level[g.head[e]!]!; r++) row[r]! += edgeGap
   let widest = 0
-  for (const w of row) widest = Math.max(widest, w)
+  for (const w of rowWidths(g, level, across, nodeGap, edgeGap)) widest = Math.max(widest, w)
   return widest
 }
 
