@@ -130,16 +130,23 @@ function randomForced(random: () => number, edges: Edge[], level: number[]): For
   return forced
 }
 
+/** The next random level graph small enough to enumerate (at most 20,000 order tuples) that got forced pairs. */
+function forcedCase(random: () => number): {edges: Edge[]; level: number[]; forced: ForcedPair[]} {
+  for (;;) {
+    const {edges, level} = randomLevelGraph(random)
+    if (orderSpace(edges, level) > 20_000) continue
+    const forced = randomForced(random, edges, level)
+    if (forced.length > 0) return {edges, level, forced}
+  }
+}
+
 describe('testLevelPlanarity with forced pairs against brute force', () => {
   it('agrees on 1,500 random level graphs with 1–4 random forced pairs; witnesses keep the pairs and draw no crossing; certificates re-checked', () => {
     const random = prng(20261202)
     const seen = {planar: 0, notPlanar: 0, equations: 0, search: 0}
     let cases = 0
     while (cases < 1500) {
-      const {edges, level} = randomLevelGraph(random)
-      if (orderSpace(edges, level) > 20_000) continue
-      const forced = randomForced(random, edges, level)
-      if (forced.length === 0) continue
+      const {edges, level, forced} = forcedCase(random)
       cases++
       const graph = createDigraph(level.length, edges)
       const drawings = crossingFreeOrders(edges, level)
@@ -196,10 +203,7 @@ describe('testLevelPlanarity with forced pairs against brute force', () => {
     let cases = 0
     let undecided = 0
     while (cases < 1000) {
-      const {edges, level} = randomLevelGraph(random)
-      if (orderSpace(edges, level) > 20_000) continue
-      const forced = randomForced(random, edges, level)
-      if (forced.length === 0) continue
+      const {edges, level, forced} = forcedCase(random)
       cases++
       const graph = createDigraph(level.length, edges)
       const keeping = crossingFreeOrders(edges, level).filter((orders) => keeps(orders, forced))
