@@ -1,6 +1,6 @@
 import {describe, expect, it} from 'vitest'
 import {createDigraph, testPlanarity, verifyPlanarEmbedding} from '@upright/core'
-import {incidenceOfDigraph, incidenceOfSimple} from '../src/planarity/incidence.ts'
+import {incidenceForDecision, incidenceOfDigraph, incidenceOfSimple} from '../src/planarity/incidence.ts'
 import {isPlanar} from '../src/planarity/test-planarity.ts'
 import {simplify} from '../src/planarity/simplify.ts'
 import {prng, randomMaximalPlanar, shuffle, type Edges} from './support/planarity-generators.ts'
@@ -85,5 +85,46 @@ describe('left-right memory layout', () => {
       if (r.planar) for (const rot of r.embedding.rotation) { mix(rot.length); for (const e of rot) mix(e) }
     }
     expect(h.toString(16)).toBe('112dad77')
+  })
+})
+
+describe('incidence lists for the decision alone', () => {
+  it('hold each vertex its neighbours in its own order, and the decision agrees with the embedding test', () => {
+    const rand = prng(37)
+    for (let t = 0; t < 200; t++) {
+      const n = 3 + Math.floor(rand() * (t < 150 ? 40 : 2000))
+      const all = directed(randomMaximalPlanar(n, rand), rand)
+      const edges = shuffle(all, rand).slice(0, Math.max(1, Math.floor(all.length * (0.3 + 0.7 * rand()))))
+      // A few extra random edges make some graphs non-planar (skipped when they would repeat a pair).
+      const extra = t % 3 === 0 ? 6 : 0
+      for (let k = 0; k < extra; k++) {
+        const u = Math.floor(rand() * n), v = Math.floor(rand() * n)
+        if (u !== v && !edges.some(([a, b]) => (a === u && b === v) || (a === v && b === u))) edges.push([u, v])
+      }
+      const g = createDigraph(n, edges)
+      const inc = incidenceForDecision(g)
+      expect(inc).not.toBeNull()
+      for (let v = 0; v < n; v++) {
+        const own = [...g.outEdges.slice(g.outStart[v], g.outStart[v + 1]).map((e) => g.head[e]!),
+          ...g.inEdges.slice(g.inStart[v], g.inStart[v + 1]).map((e) => g.tail[e]!)]
+        expect(Array.from(inc!.other.subarray(inc!.adjStart[v], inc!.adjStart[v + 1]))).toEqual(own)
+      }
+      expect(isPlanar(g)).toBe(testPlanarity(g).planar)
+    }
+  })
+
+  it('decline loops, parallel and antiparallel edges, at small and large degree', () => {
+    expect(incidenceForDecision(createDigraph(3, [[0, 1], [1, 1]]))).toBeNull()
+    expect(incidenceForDecision(createDigraph(3, [[0, 1], [1, 2], [0, 1]]))).toBeNull()
+    expect(incidenceForDecision(createDigraph(3, [[0, 1], [1, 2], [1, 0]]))).toBeNull()
+    const star: Edges = Array.from({length: 20}, (_, i) => [0, i + 1] as [number, number])
+    expect(incidenceForDecision(createDigraph(21, star))).not.toBeNull()
+    expect(incidenceForDecision(createDigraph(21, [...star, [7, 0]]))).toBeNull()
+    expect(incidenceForDecision(createDigraph(21, [...star, [0, 0]]))).toBeNull()
+    // Loops and repeats still get their answer, through simplify: K5 with a doubled edge is not planar.
+    const k5: Edges = []
+    for (let u = 0; u < 5; u++) for (let v = u + 1; v < 5; v++) k5.push([u, v])
+    expect(isPlanar(createDigraph(5, [...k5, [1, 0]]))).toBe(false)
+    expect(isPlanar(createDigraph(5, [...k5.slice(1), [2, 1], [2, 2]]))).toBe(true) // K5 less an edge
   })
 })

@@ -116,3 +116,50 @@ export function incidenceOfDigraph(g: Digraph, withLabels = true): Incidence | n
 }
 
 const NEAR = 16
+
+/**
+ * Unlabelled slots of a digraph's underlying graph for the decision alone, in each vertex's own order
+ * (its out-list, then its in-list); null on a loop or two edges between the same vertices.
+ *
+ * Whether a graph is planar does not depend on the order of its incidence lists, so the decision
+ * need not reproduce `simplify`'s numbering (incidenceOfDigraph does, for the rotation's sake). Each
+ * vertex then fills only its own slots: its edges' other ends are read at scattered places but no
+ * read waits on another, and nothing is written out of order. incidenceOfDigraph also appends every
+ * edge to the larger end's slots, a scattered read-modify-write of that end's fill counter and a
+ * scattered write per edge, which at 10^6 edges costs about as much again (bench/README.md,
+ * "Planarity"). Every edge is seen from both ends here, so repeats are looked for among all of a
+ * vertex's neighbours. O(n + m).
+ */
+export function incidenceForDecision(g: Digraph): Incidence | null {
+  const n = g.vertexCount
+  const m = g.edgeCount
+  const {outStart, outEdges, inStart, inEdges, head, tail} = g
+  const adjStart = new Int32Array(n + 1)
+  for (let v = 0; v < n; v++) {
+    adjStart[v + 1] = adjStart[v]! + outStart[v + 1]! - outStart[v]! + inStart[v + 1]! - inStart[v]!
+  }
+  const other = new Int32Array(2 * m)
+  let stamp: Int32Array | null = null
+  for (let u = 0; u < n; u++) {
+    const s0 = adjStart[u]!
+    let s = s0
+    // Gather first (reads that do not wait on each other), then check what was gathered.
+    for (let i = outStart[u]!, i1 = outStart[u + 1]!; i < i1; i++) other[s++] = head[outEdges[i]!]!
+    for (let i = inStart[u]!, i1 = inStart[u + 1]!; i < i1; i++) other[s++] = tail[inEdges[i]!]!
+    if (s - s0 > NEAR) {
+      if (stamp === null) stamp = new Int32Array(n).fill(-1)
+      for (let j = s0; j < s; j++) {
+        const w = other[j]!
+        if (w === u || stamp[w] === u) return null
+        stamp[w] = u
+      }
+    } else {
+      for (let j = s0; j < s; j++) {
+        const w = other[j]!
+        if (w === u) return null
+        for (let k = s0; k < j; k++) if (other[k] === w) return null
+      }
+    }
+  }
+  return {vertexCount: n, edgeCount: m, adjStart, other, label: new Int32Array(0), labelsAreIds: true}
+}

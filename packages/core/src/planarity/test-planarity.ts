@@ -15,7 +15,7 @@ import type {Digraph} from '../graph/digraph.ts'
 import {flatRotationSystem, type RotationSystem} from '../embedding/rotation-system.ts'
 import type {PlanarityResult} from './index.ts'
 import {embedIncidence, embedPlanarSimple, isPlanarIncidence, isPlanarSimple, type SimpleRotation} from './left-right.ts'
-import {incidenceOfDigraph} from './incidence.ts'
+import {incidenceForDecision, incidenceOfDigraph} from './incidence.ts'
 import {classifySubdivision, minimalNonplanarEdges} from './kuratowski.ts'
 import {simplify, type Simplified} from './simplify.ts'
 
@@ -35,7 +35,7 @@ export function testPlanarity(g: Digraph): PlanarityResult {
 
 /** Is g's underlying graph planar? The decision alone (no embedding, no certificate). O(n + m). */
 export function isPlanar(g: Digraph): boolean {
-  const inc = incidenceOfDigraph(g, false) // the decision reads no labels
+  const inc = incidenceForDecision(g) // any slot order gives the same answer
   return inc !== null ? isPlanarIncidence(inc) : isPlanarSimple(simplify(g).simple)
 }
 
