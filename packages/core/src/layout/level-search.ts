@@ -30,7 +30,9 @@
  * With a bound on the rows' widths (RowWidthBound), a level that makes a row of the placed part as
  * wide as the bound is ruled out without a test (rows only widen as vertices are placed), its
  * culprits the placed vertices on that row and the ends of the placed edges passing it; so a "none"
- * says no level-planar assignment has every row narrower (branch and bound on the widest row).
+ * says no level-planar assignment has every row narrower (branch and bound on the widest row). With
+ * the 'least' estimate (row-bound.ts) that "none" holds for the drawn rows: no drawing of any
+ * level-planar assignment within the rows has every row narrower than the bound.
  *
  * Levels tried first: with `guide`, those nearest the guide's level of the vertex (a known assignment
  * with one row more keeps most vertices where they are); then the least total span of the edges to
@@ -45,6 +47,7 @@ import {testLevelPlanarity, type LevelItem} from '../level/level-planarity.ts'
 import {levelTestWork} from './level-candidates.ts'
 import {longestPathToSinks, longestPathUp, topologicalOrder} from './layering.ts'
 import {rowWidths} from './balance-rows.ts'
+import {leastGaps, leastGapsToCome} from './row-bound.ts'
 
 export type LevelSearch =
   | {status: 'found'; level: Int32Array; orders: LevelItem[][]}
@@ -72,7 +75,9 @@ export interface LevelSearchBudget {
 
 /**
  * A bound on the rows' widths, each estimated as balance-rows.ts does: every box's extent across the
- * flow plus the gap between boxes, and the edge gap for each edge passing through the row.
+ * flow plus the gap between boxes, and the edge gap for each edge passing through the row; or, with
+ * `estimate: 'least'`, as the least width any order of the row can be drawn with (row-bound.ts:
+ * leastRowWidth), so that a "none" says no drawing of these rows is narrower.
  */
 export interface RowWidthBound {
   across: ArrayLike<number>
@@ -80,6 +85,8 @@ export interface RowWidthBound {
   edgeGap: number
   /** Every row must stay narrower than this. */
   below: number
+  /** 'sum' (the default): balance-rows.ts's estimate; 'least': row-bound.ts's lower bound. */
+  estimate?: 'sum' | 'least' | undefined
 }
 
 /** The widest row of an assignment, by the estimate of RowWidthBound. O(n + m + L · m) at worst. */
@@ -224,10 +231,24 @@ export function searchLevels(g: Digraph, rows: number, budget: LevelSearchBudget
   }
   // Row widths of the placed part (with `bound`): a row only widens as vertices are placed, so a
   // row at or past the bound rules the partial assignment out, and its culprits are the placed
-  // vertices on it and the ends of the placed edges passing through it.
+  // vertices on it and the ends of the placed edges passing through it. With the 'least' estimate
+  // each row keeps its boxes' extent, boxes and bends, and a partial row counts the least it can
+  // still come to (leastGapsToCome: more bends can narrow it when a bend between two boxes is
+  // cheaper than a box gap); the whole assignment is then checked with its own bends (`final`).
+  const least = bound?.estimate === 'least'
   const width = bound ? new Float64Array(rows) : undefined
+  const boxCount = least ? new Int32Array(rows) : undefined
+  const bendCount = least ? new Int32Array(rows) : undefined
+  const rowValue = (r: number, final: boolean): number => {
+    if (!least) return width![r]!
+    // A level without boxes is dropped from the assignment found (with the bends on it).
+    if (boxCount![r] === 0) return 0
+    const gaps = final ? leastGaps : leastGapsToCome
+    return width![r]! + gaps(boxCount![r]!, bendCount![r]!, bound!.nodeGap, bound!.edgeGap)
+  }
   /** Adds (sign 1) or takes away (-1) v's box at l and its edges to `placed`; the first row at or past the bound, or -1. */
   const widen = (v: number, l: number, placed: number[], sign: number): number => {
+    if (least) return widenLeast(v, l, placed, sign)
     const w = width!
     const b = bound!
     let over = -1
@@ -242,6 +263,30 @@ export function searchLevels(g: Digraph, rows: number, budget: LevelSearchBudget
       }
     }
     return over
+  }
+  /** widen for the 'least' estimate; with the last vertex, every row is checked with its own bends. */
+  const widenLeast = (v: number, l: number, placed: number[], sign: number): number => {
+    const b = bound!
+    const final = position[v] === n - 1
+    width![l]! += sign * b.across[v]!
+    boxCount![l]! += sign
+    for (const u of placed) {
+      const lo = Math.min(l, level[u]!)
+      const hi = Math.max(l, level[u]!)
+      for (let r = lo + 1; r < hi; r++) bendCount![r]! += sign
+    }
+    if (sign < 0) return -1
+    if (final) {
+      for (let r = 0; r < rows; r++) if (rowValue(r, true) >= b.below) return r
+      return -1
+    }
+    if (rowValue(l, false) >= b.below) return l
+    for (const u of placed) {
+      const lo = Math.min(l, level[u]!)
+      const hi = Math.max(l, level[u]!)
+      for (let r = lo + 1; r < hi; r++) if (rowValue(r, false) >= b.below) return r
+    }
+    return -1
   }
   /** Positions below i that put a box on row r or an edge through it. O(n + m). */
   const widthCulprits = (r: number, i: number): number[] => {
