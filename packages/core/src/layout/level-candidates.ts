@@ -166,9 +166,17 @@ export function levelCandidates(g: Digraph, st: StAugmentation, options: Readonl
   add('longest-path-down', longestPathDown(g), false)
   add('short-edges', compress(layerByWeightedSpan(g, () => 1).rank, n), false)
   const relaxed = relaxAugmentation(g, st, options.maxTests ?? 24, test)
-  if (relaxed && !seen.some((s) => sameLevels(s, relaxed.level))) {
-    seen.push(relaxed.level)
-    found.push({kind: 'relaxed-augmentation', ...relaxed, balanced: false})
+  // The relaxed assignment, and H's own layering it started from (the st-layout's rows): evened out,
+  // the latter can narrow a drawing that keeps the st-layout's height, where fewer rows would lose the
+  // written order (g.10.45 of the North DAGs: a vertex between two that meet above it must stay
+  // below their meeting point, so 7 rows; one box moved up beside another narrows it by a third).
+  // It brings its own budget (its tests evened out, one per preference), so it never takes tests from
+  // the candidates after it.
+  for (const r of relaxed ? [relaxed.best, relaxed.first] : []) {
+    if (seen.some((s) => sameLevels(s, r.level))) continue
+    seen.push(r.level)
+    found.push({kind: 'relaxed-augmentation', ...r, balanced: false})
+    if (r === relaxed!.first) budget += 2 * preferences.length * levelTestWork(g, r.level)
   }
   // Each assignment found also with its rows evened out, and all with the orders of the other
   // preferences where they differ. The lifted and compacted assignments (the costliest searches)
@@ -556,7 +564,7 @@ function relaxAugmentation(
   st: StAugmentation,
   maxTests: number,
   test: (level: Int32Array) => LevelItem[][] | undefined
-): {level: Int32Array; orders: LevelItem[][]} | undefined {
+): {best: {level: Int32Array; orders: LevelItem[][]}; first: {level: Int32Array; orders: LevelItem[][]}} | undefined {
   const h = st.graph
   const m = g.edgeCount
   const added = h.edgeCount - m
@@ -566,7 +574,8 @@ function relaxAugmentation(
   let orders = test(current.level)
   let tests = 1
   if (!orders) return undefined
-  let best = {level: current.level, orders}
+  const first = {level: current.level, orders}
+  let best = first
   while (tests < maxTests) {
     // Kept added edges that are tight and lie on a longest path of the current graph.
     const top = longest(current)
@@ -609,5 +618,5 @@ function relaxAugmentation(
     }
     if (!moved) break
   }
-  return best
+  return {best, first}
 }
