@@ -23,6 +23,15 @@ const MAX_PASSES = 4
  * undefined when no move helps.
  */
 export function balanceRows(g: Digraph, level: Int32Array, across: ArrayLike<number>, nodeGap: number, edgeGap: number): Int32Array | undefined {
+  const moved = evenRows(g, level, across, nodeGap, edgeGap)
+  return moved && dropEmptyLevels(moved)
+}
+
+/**
+ * balanceRows without the last step: the levels keep the input's numbering (a level the moves left
+ * empty stays, empty), so each vertex's new level can be compared with, and set back to, its old one.
+ */
+export function evenRows(g: Digraph, level: Int32Array, across: ArrayLike<number>, nodeGap: number, edgeGap: number): Int32Array | undefined {
   const n = g.vertexCount
   let height = 0
   for (let v = 0; v < n; v++) height = Math.max(height, level[v]! + 1)
@@ -83,13 +92,18 @@ export function balanceRows(g: Digraph, level: Int32Array, across: ArrayLike<num
     }
     if (!moved) break
   }
-  if (!changed) return undefined
-  // Levels left empty by the moves disappear.
+  return changed ? lv : undefined
+}
+
+/** The same levels with every empty one removed (the rest renumbered in order). O(n + L). */
+export function dropEmptyLevels(level: Int32Array): Int32Array {
+  let height = 0
+  for (const l of level) height = Math.max(height, l + 1)
   const used = new Uint8Array(height)
-  for (let v = 0; v < n; v++) used[lv[v]!] = 1
+  for (const l of level) used[l] = 1
   const renumber = new Int32Array(height)
   for (let l = 0, k = 0; l < height; l++) renumber[l] = used[l] ? k++ : -1
-  return lv.map((l) => renumber[l]!)
+  return level.map((l) => renumber[l]!)
 }
 
 /**

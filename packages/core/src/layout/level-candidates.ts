@@ -46,7 +46,7 @@
 import {createDigraph, type Digraph} from '../graph/digraph.ts'
 import {testLevelPlanarity, type LevelItem, type LevelPlanarity, type LevelPlanarityOptions} from '../level/level-planarity.ts'
 import type {StAugmentation} from '../augment/index.ts'
-import {balanceRows} from './balance-rows.ts'
+import {dropEmptyLevels, evenRows} from './balance-rows.ts'
 import {layerByWeightedSpan, longestPathToSinks, longestPathUp, topologicalOrder} from './layering.ts'
 import {searchLevels, widestRow, type LevelSearch} from './level-search.ts'
 
@@ -72,6 +72,8 @@ const SEARCH_WORK = 750_000
  * above dagre's area to under it, at 1.07x the CPU; 12 and 500 186 and 8 at 1.17x; 24 and 1,000 207
  * and 11 at 1.32x (bench/README.md).
  */
+/** Rounds of setting moves back when rows evened out fail the level test (addEvenedOut). */
+const UNDO_ROUNDS = 3
 const SEARCH_WIDTH_TESTS = 8
 const SEARCH_WIDTH_STEPS = 300
 const WIDTH_STEP = 0.5
@@ -162,6 +164,31 @@ export function levelCandidates(g: Digraph, st: StAugmentation, options: Readonl
     const orders = test(level)
     if (orders) found.push({kind, level, orders, balanced})
   }
+  // Rows evened out (balance-rows.ts) may not be level planar any more. Then the moved vertices among
+  // the ends of the odd cycle's edges go back to their levels (and any moved neighbour an edge then
+  // needs), and the test is asked again, up to UNDO_ROUNDS times: the rest of the moves stay.
+  const addEvenedOut = (kind: LevelCandidateKind, from: Int32Array, moved: Int32Array): void => {
+    const p = preferences[0]!
+    let raw = moved
+    for (let round = 0; ; round++) {
+      const level = dropEmptyLevels(raw)
+      if (seen.some((s) => sameLevels(s, level))) return
+      const own = p.edgeRank ? ordersByRank(g, level, p.rank, p.edgeRank) : undefined
+      const r = own ? undefined : probe(level, p)
+      const orders = own ?? (r?.status === 'planar' ? r.orders : undefined)
+      if (orders || r?.status !== 'not-planar' || round === UNDO_ROUNDS) {
+        seen.push(level)
+        if (orders) found.push({kind, level, orders, balanced: true})
+        return
+      }
+      const back = undoMoves(g, from, raw, r.edges)
+      if (!back) {
+        seen.push(level)
+        return
+      }
+      raw = back
+    }
+  }
   add('longest-path', longestPathUp(g), false)
   add('longest-path-down', longestPathDown(g), false)
   add('short-edges', compress(layerByWeightedSpan(g, () => 1).rank, n), false)
@@ -188,8 +215,8 @@ export function levelCandidates(g: Digraph, st: StAugmentation, options: Readonl
       for (const c of found.slice(from)) {
         // The narrower searched assignment (searchFewerRows) is already narrow by the same measure.
         if (c.narrowed) continue
-        const level = balanceRows(g, c.level, rows.across, rows.nodeGap, rows.edgeGap)
-        if (level) add(c.kind, level, true)
+        const moved = evenRows(g, c.level, rows.across, rows.nodeGap, rows.edgeGap)
+        if (moved) addEvenedOut(c.kind, c.level, moved)
       }
     }
     for (const c of found.slice(from)) {
@@ -619,4 +646,29 @@ function relaxAugmentation(
     if (!moved) break
   }
   return {best, first}
+}
+
+/**
+ * `moved` with the moved vertices among the ends of `edges` set back to their levels in `from` (same
+ * numbering), then every moved vertex an edge no longer rises over set back too, until every edge
+ * rises (it does once all are back); undefined when none of the ends was moved. O((n + m) · rounds).
+ */
+function undoMoves(g: Digraph, from: Int32Array, moved: Int32Array, edges: readonly number[]): Int32Array | undefined {
+  const out = moved.slice()
+  let any = false
+  for (const e of edges) {
+    for (const v of [g.tail[e]!, g.head[e]!]) {
+      if (out[v] !== from[v]) { out[v] = from[v]!; any = true }
+    }
+  }
+  if (!any) return undefined
+  for (let again = true; again;) {
+    again = false
+    for (let e = 0; e < g.edgeCount; e++) {
+      const a = g.tail[e]!, b = g.head[e]!
+      if (out[a]! < out[b]!) continue
+      for (const v of [a, b]) if (out[v] !== from[v]) { out[v] = from[v]!; again = true }
+    }
+  }
+  return out
 }
