@@ -72,8 +72,13 @@ const SEARCH_WORK = 750_000
  * above dagre's area to under it, at 1.07x the CPU; 12 and 500 186 and 8 at 1.17x; 24 and 1,000 207
  * and 11 at 1.32x (bench/README.md).
  */
-/** Rounds of setting moves back when rows evened out fail the level test (addEvenedOut). */
-const UNDO_ROUNDS = 3
+/**
+ * Rounds of setting moves back when rows evened out fail the level test (addEvenedOut), per evened-out
+ * assignment, and the pairs their tests may set up per diagram (their own budget, so they never take
+ * tests from the other candidates).
+ */
+const UNDO_ROUNDS = 24
+const UNDO_WORK = 500_000
 const SEARCH_WIDTH_TESTS = 8
 const SEARCH_WIDTH_STEPS = 300
 const WIDTH_STEP = 0.5
@@ -155,6 +160,13 @@ export function levelCandidates(g: Digraph, st: StAugmentation, options: Readonl
     return testLevelPlanarity(g, level, limits(p))
   }
   const test = (level: Int32Array): LevelItem[][] | undefined => ordersFor(level, preferences[0]!)
+  let undoBudget = UNDO_WORK
+  const undoProbe = (level: Int32Array, p: OrderPreference): LevelPlanarity | undefined => {
+    const work = levelTestWork(g, level)
+    if (work > undoBudget) return undefined
+    undoBudget -= work
+    return testLevelPlanarity(g, level, limits(p))
+  }
   // narrowed: the narrower searched assignment, not evened out again (it is narrow by that measure).
   const found: Array<{kind: LevelCandidateKind; level: Int32Array; orders: LevelItem[][]; balanced: boolean; narrowed?: boolean}> = []
   const seen: Int32Array[] = []
@@ -174,7 +186,8 @@ export function levelCandidates(g: Digraph, st: StAugmentation, options: Readonl
       const level = dropEmptyLevels(raw)
       if (seen.some((s) => sameLevels(s, level))) return
       const own = p.edgeRank ? ordersByRank(g, level, p.rank, p.edgeRank) : undefined
-      const r = own ? undefined : probe(level, p)
+      // The first test from the shared budget, as for any candidate; the rounds after it from their own.
+      const r = own ? undefined : round === 0 ? probe(level, p) : undoProbe(level, p)
       const orders = own ?? (r?.status === 'planar' ? r.orders : undefined)
       if (orders || r?.status !== 'not-planar' || round === UNDO_ROUNDS) {
         seen.push(level)
