@@ -20,16 +20,9 @@ const MAX_PASSES = 4
 
 /**
  * `across[v]`: the extent of v's box across the flow. Returns new levels (the input is not changed), or
- * undefined when no move helps.
- */
-export function balanceRows(g: Digraph, level: Int32Array, across: ArrayLike<number>, nodeGap: number, edgeGap: number): Int32Array | undefined {
-  const moved = evenRows(g, level, across, nodeGap, edgeGap)
-  return moved && dropEmptyLevels(moved)
-}
-
-/**
- * balanceRows without the last step: the levels keep the input's numbering (a level the moves left
- * empty stays, empty), so each vertex's new level can be compared with, and set back to, its old one.
+ * undefined when no move helps. They keep the input's numbering (a level the moves left empty stays,
+ * empty; dropEmptyLevels closes it up), so each vertex's new level can be compared with, and set back
+ * to, its old one.
  */
 export function evenRows(g: Digraph, level: Int32Array, across: ArrayLike<number>, nodeGap: number, edgeGap: number): Int32Array | undefined {
   const n = g.vertexCount

@@ -146,29 +146,29 @@ export function levelCandidates(g: Digraph, st: StAugmentation, options: Readonl
     if (p.edgeRank) l.edgeRank = p.edgeRank
     return l
   }
-  let budget = options.workBudget ?? 500_000
-  /** Orders for `level` following preference p: its own orders when they draw cleanly, else the test's. */
-  const ordersFor = (level: Int32Array, p: OrderPreference): LevelItem[][] | undefined => {
+  // Pairs the level tests may set up: `shared` by all candidates, `undo` by addEvenedOut's rounds after
+  // the first.
+  const shared = {work: options.workBudget ?? 500_000}
+  const undo = {work: UNDO_WORK}
+  /**
+   * Orders for `level` following preference p: its own orders when they draw cleanly, else the test's
+   * (`tested`: the test's answer, when it ran).
+   */
+  const witness = (level: Int32Array, p: OrderPreference, pool = shared): {orders?: LevelItem[][] | undefined; tested?: LevelPlanarity | undefined} => {
     const own = p.edgeRank ? ordersByRank(g, level, p.rank, p.edgeRank) : undefined
-    if (own) return own
-    const r = probe(level, p)
-    return r?.status === 'planar' ? r.orders : undefined
+    if (own) return {orders: own}
+    const tested = probe(level, p, pool)
+    return {orders: tested?.status === 'planar' ? tested.orders : undefined, tested}
   }
-  /** The level test within what is left of the budget; undefined when it would go past it. */
-  const probe = (level: Int32Array, p: OrderPreference): LevelPlanarity | undefined => {
+  const ordersFor = (level: Int32Array, p: OrderPreference): LevelItem[][] | undefined => witness(level, p).orders
+  /** The level test within what is left of `pool`; undefined when it would go past it. */
+  const probe = (level: Int32Array, p: OrderPreference, pool = shared): LevelPlanarity | undefined => {
     const work = levelTestWork(g, level)
-    if (work > budget) return undefined
-    budget -= work
+    if (work > pool.work) return undefined
+    pool.work -= work
     return testLevelPlanarity(g, level, limits(p))
   }
   const test = (level: Int32Array): LevelItem[][] | undefined => ordersFor(level, preferences[0]!)
-  let undoBudget = UNDO_WORK
-  const undoProbe = (level: Int32Array, p: OrderPreference): LevelPlanarity | undefined => {
-    const work = levelTestWork(g, level)
-    if (work > undoBudget) return undefined
-    undoBudget -= work
-    return testLevelPlanarity(g, level, limits(p))
-  }
   const found: Array<{kind: LevelCandidateKind; level: Int32Array; orders: LevelItem[][]; balanced: boolean}> = []
   const seen: Int32Array[] = []
   const add = (kind: LevelCandidateKind, level: Int32Array, balanced: boolean): void => {
@@ -186,10 +186,8 @@ export function levelCandidates(g: Digraph, st: StAugmentation, options: Readonl
     for (let round = 0; ; round++) {
       const level = dropEmptyLevels(raw)
       if (seen.some((s) => sameLevels(s, level))) return
-      const own = p.edgeRank ? ordersByRank(g, level, p.rank, p.edgeRank) : undefined
       // The first test from the shared budget, as for any candidate; the rounds after it from their own.
-      const r = own ? undefined : round === 0 ? probe(level, p) : undoProbe(level, p)
-      const orders = own ?? (r?.status === 'planar' ? r.orders : undefined)
+      const {orders, tested: r} = witness(level, p, round === 0 ? shared : undo)
       if (orders || r?.status !== 'not-planar' || round === UNDO_ROUNDS) {
         seen.push(level)
         if (orders) found.push({kind, level, orders, balanced: true})
@@ -217,7 +215,7 @@ export function levelCandidates(g: Digraph, st: StAugmentation, options: Readonl
     if (seen.some((s) => sameLevels(s, r.level))) continue
     seen.push(r.level)
     found.push({kind: 'relaxed-augmentation', ...r, balanced: false})
-    if (r === relaxed!.first) budget += 2 * preferences.length * levelTestWork(g, r.level)
+    if (r === relaxed!.first) shared.work += 2 * preferences.length * levelTestWork(g, r.level)
   }
   // Each assignment found also with its rows evened out, and all with the orders of the other
   // preferences where they differ. The lifted and compacted assignments (the costliest searches)
