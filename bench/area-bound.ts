@@ -41,15 +41,12 @@ import {leastHeight, leastWidth} from '../packages/core/src/layout/row-bound.ts'
 import {labelBox} from '../packages/core/src/measure/index.ts'
 import {readGraphml} from '../packages/core/test/support/graphml.ts'
 import {checkDrawing} from '../packages/core/test/support/geometry-check.ts'
+import {numberOption} from './support/number-option.ts'
 
 const NORTH = '/work/shared/data/north'
 const args = process.argv.slice(2)
-const option = (name: string, fallback: number): number => {
-  const at = args.indexOf(name)
-  return at >= 0 ? Number(args[at + 1]) : fallback
-}
-const TESTS = option('--tests', 20_000)
-const STEPS = option('--steps', 1_000_000)
+const TESTS = numberOption('--tests', 20_000)
+const STEPS = numberOption('--steps', 1_000_000)
 const names = args.filter((a, i) => !a.startsWith('--') && !(i > 0 && args[i - 1]!.startsWith('--')))
 /** Halving stops when the bracket on the widest row is this narrow (px) or after this many searches. */
 const TOLERANCE = 1

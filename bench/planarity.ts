@@ -28,17 +28,14 @@ import {createDigraph, testPlanarity, verifyKuratowski, verifyPlanarEmbedding, t
 import {isPlanar} from '../packages/core/src/planarity/test-planarity.ts'
 import {incidenceForDecision} from '../packages/core/src/planarity/incidence.ts'
 import {bareDepthFirst} from './support/bare-dfs.ts'
+import {numberOption} from './support/number-option.ts'
 import {prng, randomMaximalPlanar, randomNonEdge, type Edges} from '../packages/core/test/support/planarity-generators.ts'
 
 const args = process.argv.slice(2)
-const arg = (name: string, fallback: number): number => {
-  const i = args.indexOf(name)
-  return i >= 0 ? Number(args[i + 1]) : fallback
-}
-const maxEdges = arg('--max', 1_000_000)
-const kuratowskiMax = arg('--kuratowski-max', 100_000)
+const maxEdges = numberOption('--max', 1_000_000)
+const kuratowskiMax = numberOption('--kuratowski-max', 100_000)
 const withReference = !args.includes('--no-reference')
-const runs = arg('--runs', 7)
+const runs = numberOption('--runs', 7)
 // A handle on the collector without a node flag (pnpm bench runs plain tsx): expose it, then fetch it
 // from a fresh context, where the flag takes effect. Called as an ordinary full collection: plain gc()
 // collects "all available garbage", which also drops compiled code, and made the next 10^3-edge batch

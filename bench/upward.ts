@@ -9,14 +9,11 @@ import {readdirSync, readFileSync} from 'node:fs'
 import {createDigraph, type Digraph} from '../packages/core/src/graph/digraph.ts'
 import {testPlanarity} from '../packages/core/src/planarity/index.ts'
 import {findMinimalObstruction, testUpwardPlanarity} from '../packages/core/src/upward/index.ts'
+import {numberOption} from './support/number-option.ts'
 
 const dir = '/work/shared/data/north'
-const arg = (name: string, dflt: number) => {
-  const i = process.argv.indexOf(name)
-  return i === -1 ? dflt : Number(process.argv[i + 1])
-}
-const budget = arg('--budget', 3000)
-const runs = arg('--runs', 3)
+const budget = numberOption('--budget', 3000)
+const runs = numberOption('--runs', 3)
 
 function read(file: string): Digraph {
   const text = readFileSync(`${dir}/${file}`, 'utf8')
@@ -33,7 +30,7 @@ function read(file: string): Digraph {
 // --thinned N: only time the single-source route on bench/growth.ts's "thinned" family (a k×k grid
 // with one diagonal per cell, seed 78, every vertex keeping one random in-edge and each other edge
 // surviving with probability 1/2, seed 79: one source, many sinks, upward planar), budget --budget.
-const thinned = arg('--thinned', 0)
+const thinned = numberOption('--thinned', 0)
 if (thinned > 0) {
   // The growth bench's thinned family, same seeds: one random in-edge per vertex kept, half the rest.
   const {singleSource, stGrid} = await import('./support/grid-families.ts')
@@ -51,7 +48,7 @@ if (thinned > 0) {
     const other = (await import(`${dir}/packages/core/src/upward/index.ts`)) as {testUpwardPlanarity: typeof testUpwardPlanarity}
     contenders.push([dir, other.testUpwardPlanarity])
   }
-  for (let run = 1; run <= arg('--runs', 1); run++) {
+  for (let run = 1; run <= numberOption('--runs', 1); run++) {
     for (const [name, test] of run % 2 === 1 ? contenders : [...contenders].reverse()) {
       const t0 = performance.now()
       const c0 = process.cpuUsage()
