@@ -68,13 +68,7 @@ export function incidenceOfDigraph(g: Digraph, withLabels = true): Incidence | n
   const n = g.vertexCount
   const m = g.edgeCount
   const {outStart, outEdges, inStart, inEdges, head, tail} = g
-  const adjStart = new Int32Array(n + 1)
-  let maxDegree = 0
-  for (let v = 0; v < n; v++) {
-    const d = outStart[v + 1]! - outStart[v]! + inStart[v + 1]! - inStart[v]!
-    adjStart[v + 1] = adjStart[v]! + d
-    if (d > maxDegree) maxDegree = d
-  }
+  const {adjStart, maxDegree} = slotStarts(g)
   const other = new Int32Array(2 * m)
   const label = new Int32Array(withLabels ? 2 * m : 0)
   const fill = adjStart.slice(0, n)
@@ -117,6 +111,19 @@ export function incidenceOfDigraph(g: Digraph, withLabels = true): Incidence | n
 
 const NEAR = 16
 
+/** Where each vertex's slots start (its degree, both directions, summed up), and the largest degree. O(n). */
+function slotStarts(g: Digraph): {adjStart: Int32Array; maxDegree: number} {
+  const {vertexCount: n, outStart, inStart} = g
+  const adjStart = new Int32Array(n + 1)
+  let maxDegree = 0
+  for (let v = 0; v < n; v++) {
+    const d = outStart[v + 1]! - outStart[v]! + inStart[v + 1]! - inStart[v]!
+    adjStart[v + 1] = adjStart[v]! + d
+    if (d > maxDegree) maxDegree = d
+  }
+  return {adjStart, maxDegree}
+}
+
 /**
  * Unlabelled slots of a digraph's underlying graph for the decision alone, in each vertex's own order
  * (its out-list, then its in-list); null on a loop or two edges between the same vertices.
@@ -134,10 +141,7 @@ export function incidenceForDecision(g: Digraph): Incidence | null {
   const n = g.vertexCount
   const m = g.edgeCount
   const {outStart, outEdges, inStart, inEdges, head, tail} = g
-  const adjStart = new Int32Array(n + 1)
-  for (let v = 0; v < n; v++) {
-    adjStart[v + 1] = adjStart[v]! + outStart[v + 1]! - outStart[v]! + inStart[v + 1]! - inStart[v]!
-  }
+  const {adjStart} = slotStarts(g)
   const other = new Int32Array(2 * m)
   let stamp: Int32Array | null = null
   for (let u = 0; u < n; u++) {
