@@ -22,15 +22,18 @@ const MAX_PASSES = 4
  * `across[v]`: the extent of v's box across the flow. Returns new levels (the input is not changed), or
  * undefined when no move helps. They keep the input's numbering (a level the moves left empty stays,
  * empty; dropEmptyLevels closes it up), so each vertex's new level can be compared with, and set back
- * to, its old one.
+ * to, its old one. `levels`: the levels the vertices may use, 0..levels − 1, at least the input's; one
+ * more than the input's height offers a spare level on top (shift the input up by one for a spare
+ * level below), so a crowded row can give vertices to a row of its own.
  */
-export function evenRows(g: Digraph, level: Int32Array, across: ArrayLike<number>, nodeGap: number, edgeGap: number): Int32Array | undefined {
+export function evenRows(g: Digraph, level: Int32Array, across: ArrayLike<number>, nodeGap: number, edgeGap: number, levels = 0): Int32Array | undefined {
   const n = g.vertexCount
-  let height = 0
+  let height = levels
   for (let v = 0; v < n; v++) height = Math.max(height, level[v]! + 1)
   if (height < 2) return undefined
   const lv = level.slice()
-  const row = rowWidths(g, lv, across, nodeGap, edgeGap)
+  const row = new Float64Array(height)
+  row.set(rowWidths(g, lv, across, nodeGap, edgeGap))
   const addVertex = (v: number, l: number, sign: number): void => {
     row[l]! += sign * (across[v]! + nodeGap)
     for (let p = g.inStart[v]!; p < g.inStart[v + 1]!; p++) {

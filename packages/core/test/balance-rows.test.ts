@@ -1,0 +1,98 @@
+/**
+ * Evening out rows (layout/balance-rows.ts: evenRows), with and without a spare level.
+ *
+ * What evenRows promises, checked from outside the module: every edge still rises, every vertex stays
+ * within the levels offered, and the widest row by its own estimate (rowWidths, recomputed here from
+ * the definition: each box plus a box gap, an edge gap per edge passing the row) never grows; a
+ * "no move helps" answer leaves nothing narrower to find by one move (checked by trying every single
+ * move, brute force). The spare level: a vertex whose out-edges fan out to many sinks on the top row
+ * (common practice in layered drawing: a wide fan is split over two rows) can only narrow that row
+ * when a level above it is offered.
+ */
+import {describe, expect, it} from 'vitest'
+import {createDigraph, type Digraph} from '../src/graph/digraph.ts'
+import {dropEmptyLevels, evenRows} from '../src/layout/balance-rows.ts'
+import {longestPathUp} from '../src/layout/layering.ts'
+import {prng} from './support/layout-st-generator.ts'
+
+const NODE_GAP = 24
+const EDGE_GAP = 14
+
+/** Per row: boxes plus a box gap each, an edge gap per edge passing through. */
+function widths(g: Digraph, level: ArrayLike<number>, across: ArrayLike<number>, rows: number): number[] {
+  const w = new Array<number>(rows).fill(0)
+  for (let v = 0; v < g.vertexCount; v++) w[level[v]!]! += across[v]! + NODE_GAP
+  for (let e = 0; e < g.edgeCount; e++) for (let r = level[g.tail[e]!]! + 1; r < level[g.head[e]!]!; r++) w[r]! += EDGE_GAP
+  return w
+}
+
+function randomDag(rand: () => number, n: number, p: number): Digraph {
+  const edges: Array<[number, number]> = []
+  for (let a = 0; a < n; a++) for (let b = a + 1; b < n; b++) if (rand() < p) edges.push([a, b])
+  return createDigraph(n, edges)
+}
+
+describe('evenRows', () => {
+  it('keeps edges rising and levels in range, and never widens the widest row (random DAGs, with and without a spare level)', () => {
+    const rand = prng(20261203)
+    let moved = 0
+    for (let t = 0; t < 300; t++) {
+      const n = 3 + Math.floor(rand() * 12)
+      const g = randomDag(rand, n, 0.15 + rand() * 0.3)
+      const across = Array.from({length: n}, () => 40 + Math.floor(rand() * 80))
+      const level = longestPathUp(g)
+      const height = Math.max(...level) + 1
+      for (const spare of [0, 1]) {
+        const levels = height + spare
+        const out = evenRows(g, level, across, NODE_GAP, EDGE_GAP, levels)
+        if (!out) continue
+        moved++
+        for (let v = 0; v < n; v++) expect(out[v]).toBeGreaterThanOrEqual(0)
+        for (let v = 0; v < n; v++) expect(out[v]).toBeLessThan(levels)
+        for (let e = 0; e < g.edgeCount; e++) expect(out[g.tail[e]!]!).toBeLessThan(out[g.head[e]!]!)
+        expect(Math.max(...widths(g, out, across, levels))).toBeLessThanOrEqual(Math.max(...widths(g, level, across, levels)) + 1e-9)
+      }
+    }
+    expect(moved).toBeGreaterThan(50)
+  })
+
+  it('answers "no move" only when no single move narrows the widest row (brute force)', () => {
+    const rand = prng(7)
+    let settled = 0
+    for (let t = 0; t < 200; t++) {
+      const n = 3 + Math.floor(rand() * 9)
+      const g = randomDag(rand, n, 0.2 + rand() * 0.3)
+      const across = Array.from({length: n}, () => 40 + Math.floor(rand() * 80))
+      const level = longestPathUp(g)
+      const levels = Math.max(...level) + 2
+      if (evenRows(g, level, across, NODE_GAP, EDGE_GAP, levels)) continue
+      settled++
+      const widest = Math.max(...widths(g, level, across, levels))
+      for (let v = 0; v < n; v++) {
+        for (let l = 0; l < levels; l++) {
+          const next = level.slice()
+          next[v] = l
+          let rises = true
+          for (let e = 0; e < g.edgeCount; e++) if (next[g.tail[e]!]! >= next[g.head[e]!]!) rises = false
+          if (rises) expect(Math.max(...widths(g, next, across, levels))).toBeGreaterThanOrEqual(widest - 1e-9)
+        }
+      }
+    }
+    expect(settled).toBeGreaterThan(10)
+  })
+
+  it('splits a fan of sinks over a spare level on top, and cannot without it', () => {
+    // 0 -> 1 -> 2, and 2 fans out to the sinks 3..7 on the top row, the widest by far.
+    const g = createDigraph(8, [[0, 1], [1, 2], [2, 3], [2, 4], [2, 5], [2, 6], [2, 7]])
+    const across = new Array(8).fill(60)
+    const level = longestPathUp(g)
+    expect(Array.from(level)).toEqual([0, 1, 2, 3, 3, 3, 3, 3])
+    expect(evenRows(g, level, across, NODE_GAP, EDGE_GAP)).toBeUndefined()
+    const out = evenRows(g, level, across, NODE_GAP, EDGE_GAP, 5)
+    expect(out).toBeDefined()
+    const top = dropEmptyLevels(out!)
+    expect(Math.max(...top)).toBe(4)
+    const before = Math.max(...widths(g, level, across, 4))
+    expect(Math.max(...widths(g, top, across, 5))).toBeLessThan(before)
+  })
+})
