@@ -38,6 +38,10 @@
  *    (`search`), so it never takes tests from the others. Past them because it costs the most per
  *    row it gains. Then, with `rows`, at the row count reached, the same search with a bound on the
  *    rows' widths for a narrower assignment (searchFewerRows), evened out like the others.
+ * 9. area-searched (not here: smallest-layout.ts, area-search.ts, after these are drawn): from the
+ *    fewest rows found to a few more, searchLevels with the 'least' row-width bound for an assignment
+ *    drawn smaller than the smallest drawing kept so far, keeping the st-layout's written order by
+ *    forced pairs; its own budget.
  * A "no" from the test only rules out that candidate; every level test is bounded by `maxWork`
  * (pairs set up) and `maxSteps` (witness search), all of them together by `workBudget` (pairs set
  * up), deterministic counts, and `undecided` counts as no.

@@ -34,6 +34,15 @@
  * the 'least' estimate (row-bound.ts) that "none" holds for the drawn rows: no drawing of any
  * level-planar assignment within the rows has every row narrower than the bound.
  *
+ * With `written` (vertices whose out-edges must leave left to right in written order, edge id
+ * order), every test also gets forced pairs (level-planarity.ts): for each such vertex placed, the
+ * points where its placed out-edges meet the level above it (the head, or the edge's bend there),
+ * consecutive edges by id (what the ports follow, smallest-layout.ts). A subgraph's pairs are a
+ * subset of the whole graph's, so a partial assignment refuted with them is cut off as above. A
+ * refutation by a chain of equations names the ends of its edges and of the two forced pairs' edges
+ * as culprits; one by the exhausted witness search names every placed vertex (plain backtracking).
+ * Constrained level planarity is NP-hard in general, so each test stays bounded by its steps.
+ *
  * Levels tried first: with `guide`, those nearest the guide's level of the vertex (a known assignment
  * with one row more keeps most vertices where they are); then the least total span of the edges to
  * placed neighbours; then the lower.
@@ -43,7 +52,7 @@
  * levelTestWork counts them), deterministic counts; exponential without a budget.
  */
 import {createDigraph, type Digraph} from '../graph/digraph.ts'
-import {testLevelPlanarity, type LevelItem} from '../level/level-planarity.ts'
+import {testLevelPlanarity, type ForcedPair, type LevelItem} from '../level/level-planarity.ts'
 import {levelTestWork} from './level-candidates.ts'
 import {longestPathToSinks, longestPathUp, topologicalOrder} from './layering.ts'
 import {rowWidths} from './balance-rows.ts'
@@ -159,7 +168,7 @@ function placingOrder(g: Digraph, up: Int32Array, down: Int32Array): number[] {
  * none exists, or 'stopped' when `budget` runs out (spent in place). `guide`: levels to stay near.
  * `bound`: only assignments whose rows all stay narrower (a "none" then says none of those exists).
  */
-export function searchLevels(g: Digraph, rows: number, budget: LevelSearchBudget, guide?: ArrayLike<number>, bound?: RowWidthBound): LevelSearch {
+export function searchLevels(g: Digraph, rows: number, budget: LevelSearchBudget, guide?: ArrayLike<number>, bound?: RowWidthBound, written?: readonly number[]): LevelSearch {
   const n = g.vertexCount
   const topo = topologicalOrder(g)
   const up = longestPathUp(g, topo)
@@ -194,9 +203,15 @@ export function searchLevels(g: Digraph, rows: number, budget: LevelSearchBudget
     if (budget.tests < 1 || work > budget.work) return undefined
     budget.tests--
     budget.work -= work
-    const r = testLevelPlanarity(sub, subLevel, {maxWork: 250_000, maxSteps: 250_000, decideOnly: count < n})
+    const limits = {maxWork: 250_000, maxSteps: 250_000, decideOnly: count < n}
+    const pairs = written ? writtenPairs(sub, subLevel, written, position, edgeOf, count) : undefined
+    const r = pairs?.forced.length ? testLevelPlanarity(sub, subLevel, {...limits, forced: pairs.forced}) : testLevelPlanarity(sub, subLevel, limits)
     if (r.status === 'undecided') return undefined
     if (r.status === 'not-planar') return r.edges.flatMap((e) => [sub.tail[e]!, sub.head[e]!])
+    if (r.status === 'forced-infeasible') {
+      if (r.proof === 'search') return Array.from({length: count}, (_, p) => p)
+      return [...r.edges, ...r.pairs.flatMap((p) => pairs!.edges[p]!)].flatMap((e) => [sub.tail[e]!, sub.head[e]!])
+    }
     // Back to G's ids: the subgraph's vertex i is order[i], its edge j is G's edgeOf[j].
     if (count === n) orders = r.orders.map((items) => items.map((item): LevelItem => (item.kind === 'vertex' ? {kind: 'vertex', vertex: order[item.vertex]!} : {kind: 'edge', edge: edgeOf[item.edge]!})))
     return true
@@ -397,4 +412,28 @@ export function searchLevels(g: Digraph, rows: number, budget: LevelSearchBudget
   if (used.length === rows) return {status: 'found', level, orders: orders!}
   const index = new Map(used.map((l, i) => [l, i]))
   return {status: 'found', level: Int32Array.from(level, (l) => index.get(l)!), orders: used.map((l) => orders![l]!)}
+}
+
+/**
+ * The forced pairs of searchLevels's `written` vertices on a subgraph (vertex i is G's vertex placed
+ * i-th, edge j is G's edgeOf[j]), and per pair the two subgraph edges that make it. O(m log m).
+ */
+function writtenPairs(sub: Digraph, level: Int32Array, written: readonly number[], position: Int32Array, edgeOf: readonly number[], count: number): {forced: ForcedPair[]; edges: Array<[number, number]>} {
+  const forced: ForcedPair[] = []
+  const edges: Array<[number, number]> = []
+  for (const v of written) {
+    const i = position[v]!
+    if (i >= count) continue
+    const above = level[i]! + 1
+    // Out-edges in the subgraph, in G's id order (the written order).
+    const outs = Array.from(sub.outEdges.subarray(sub.outStart[i]!, sub.outStart[i + 1]!)).sort((a, b) => edgeOf[a]! - edgeOf[b]!)
+    const item = (e: number): LevelItem => (level[sub.head[e]!] === above ? {kind: 'vertex', vertex: sub.head[e]!} : {kind: 'edge', edge: e})
+    for (let k = 1; k < outs.length; k++) {
+      const [a, b] = [outs[k - 1]!, outs[k]!]
+      if (sub.head[a] === sub.head[b] && level[sub.head[a]!] === above) continue
+      forced.push({level: above, left: item(a), right: item(b)})
+      edges.push([a, b])
+    }
+  }
+  return {forced, edges}
 }

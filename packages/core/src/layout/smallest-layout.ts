@@ -20,7 +20,9 @@
  * (forcedWrittenOrder); where none shows more, the out-neighbours of the vertices out of written order
  * lowered (lowerOutNeighbours), and, one vertex short, nearby levels walked to by the forced pairs'
  * certificates (forcedLevelMoves); all within per-diagram counts of tests. Each level drawing is also asked once for a witness whose widest
- * level packs narrower (narrowerWitness), kept when drawn narrower. A level drawing that shows fewer vertices' out-edges in written
+ * level packs narrower (narrowerWitness), kept when drawn narrower. Last, on its own budget, level
+ * drawings of assignments searched for by area (area-search.ts) below the smallest drawing kept so
+ * far, with the st-layout's written order forced. A level drawing that shows fewer vertices' out-edges in written
  * order than the st-layout is not kept (unless `keepWrittenOrder` is false), so the choice never
  * undoes the written-order preference of the upward test.
  */
@@ -31,6 +33,7 @@ import {levelCandidates, levelTestWork, type LevelCandidateKind, type OrderPrefe
 import {testLevelPlanarity, type ForcedLevelPlanarity, type ForcedPair, type LevelItem} from '../level/level-planarity.ts'
 import {checkLevelDrawing} from '../level/check-level-drawing.ts'
 import {layoutUpward} from './layout-upward.ts'
+import {searchByArea} from './area-search.ts'
 import type {Digraph} from '../graph/digraph.ts'
 import type {Layout, LayoutInput} from './types.ts'
 
@@ -70,6 +73,30 @@ const FORCED_MOVES_PER_VERTEX = 16
 const NARROW_TESTS = 8
 const NARROW_WORK = 250_000
 
+/**
+ * The area-searched candidate (area-search.ts): its own budget per diagram (level tests, pairs they
+ * set up, levels tried), the most tests one search may spend, the row counts it searches past the
+ * fewest any level candidate has, and by how much (px) each find must be narrower than the last at one
+ * row count; deterministic counts. On the 813 North DAGs (2026-12-03, scratch comparison with the
+ * bench's boxes, bench/README.md): 48 tests and 1,000 levels drew 257 graphs smaller, none larger.
+ * With the bar for more rows at 0.8 (TALLER_GAIN): 313 at 1.25x the CPU, 3,000 levels 348 at 1.42x,
+ * 96 tests and 6,000 levels 382 at 1.60x, 32 tests and 2,000 levels 307 at 1.36x (two-round runs).
+ */
+const AREA_TESTS = 48
+const AREA_WORK = 1_000_000
+const AREA_STEPS = 1_000
+const AREA_PER_SEARCH = 16
+const AREA_EXTRA_ROWS = 2
+const AREA_STEP = 0.5
+/**
+ * The candidate's own bar for more rows than the st-layout: at most this share of its area (the
+ * same-height rule asks 0.8 of any drawing). Stretched over more rows than the diagram's paths give,
+ * a drawing reads worse for its area: at 0.8 the golden diamond-down was redrawn with its two
+ * siblings on two rows (0.78 of the area, a column with curved edges), fan-left and
+ * edge-labels-right likewise; at 0.7 they keep their drawings (bench/README.md).
+ */
+const TALLER_GAIN = 0.7
+
 export interface SmallestLayoutOptions {
   /** Try level candidates only for graphs with at most this many edges. Default 600. */
   maxEdges?: number | undefined
@@ -84,25 +111,29 @@ export interface SmallestLayoutOptions {
 export interface SmallestLayout {
   layout: Layout
   /** Which drawing was kept. */
-  kind: 'st' | LevelCandidateKind
+  kind: 'st' | LevelCandidateKind | 'area-searched'
   /** For a level drawing: whether its rows were evened out. */
   balanced: boolean
 }
 
 export function layoutSmallest(input: LayoutInput, options: Readonly<SmallestLayoutOptions> = {}): SmallestLayout {
   const [first, ...levelDrawings] = layoutCandidates(input, options)
-  const st = first!.layout
   const area = (l: Layout): number => l.width * l.height
-  const keep = options.keepWrittenOrder ?? true
-  const floor = keep ? writtenOrderKept(input.graph, st) : 0
-  const stRows = rowCount(st)
+  const kept = keptBy(input.graph, first!.layout, options.keepWrittenOrder ?? true)
   let best = first!
-  for (const c of levelDrawings) {
-    if (keep && writtenOrderKept(input.graph, c.layout) < floor) continue
-    if (rowCount(c.layout) >= stRows && area(c.layout) > SAME_ROWS_GAIN * area(st)) continue
-    if (area(c.layout) < area(best.layout)) best = c
-  }
+  for (const c of levelDrawings) if (kept(c.layout) && area(c.layout) < area(best.layout)) best = c
   return best
+}
+
+/**
+ * Whether layoutSmallest may keep a level drawing beside this st-layout: the written-order rule
+ * (with `keep`) and the same-height rule (SAME_ROWS_GAIN).
+ */
+function keptBy(g: Digraph, st: Layout, keep: boolean): (l: Layout) => boolean {
+  const floor = keep ? writtenOrderKept(g, st) : 0
+  const stRows = rowCount(st)
+  const stArea = st.width * st.height
+  return (l) => !(keep && writtenOrderKept(g, l) < floor) && !(rowCount(l) >= stRows && l.width * l.height > SAME_ROWS_GAIN * stArea)
 }
 
 /** Every drawing layoutSmallest compares, the st-layout first (for tests and benches). */
@@ -121,6 +152,7 @@ export function layoutCandidates(input: LayoutInput, options: Readonly<SmallestL
   const forcing: ForcedBudget = {tests: FORCED_TESTS, work: FORCED_WORK, failed: new Map()}
   const narrow = {tests: NARROW_TESTS, work: NARROW_WORK}
   const draw = (level: Int32Array, orders: LevelItem[][]): Layout => layoutLevels({graph: g, level, orders, boxes: input.boxes, flow: input.flow, spacing: input.spacing}).layout
+  const levels: Int32Array[] = []
   for (const c of levelCandidates(g, input.st, {preferences, rows})) {
     let level = c.level
     let orders = writtenOrderFacing(g, level, c.orders)
@@ -145,7 +177,43 @@ export function layoutCandidates(input: LayoutInput, options: Readonly<SmallestL
       if (other.width < layout.width && writtenOrderKept(g, other) >= writtenOrderKept(g, layout)) layout = other
     }
     out.push({layout, kind: c.kind, balanced: c.balanced})
+    levels.push(level)
   }
+  // Last, on its own budget: assignments searched for by area (area-search.ts), below the smallest
+  // drawing layoutSmallest would keep so far, each keeping the written order the st-layout shows.
+  // With the default rules whatever `keepWrittenOrder` says, so that the drawings compared do not
+  // depend on it (only the choice among them does).
+  if (levels.length === 0) return out
+  const kept = keptBy(g, out[0]!.layout, true)
+  // Guides: the rows of the drawings it may keep (the st-layout's too), the smallest first.
+  const keepable = [out[0]!, ...out.slice(1).filter((c) => kept(c.layout))].sort((a, b) => a.layout.width * a.layout.height - b.layout.width * b.layout.height)
+  let fewest = Infinity
+  for (const level of levels) fewest = Math.min(fewest, 1 + Math.max(...level))
+  const {halfV} = boxHalves(input.boxes, g.vertexCount, input.flow)
+  const stRows = rowCount(out[0]!.layout)
+  const cap = (k: number): number => (k < stRows ? Infinity : k === stRows ? SAME_ROWS_GAIN * stArea : TALLER_GAIN * stArea)
+  searchByArea(g, {
+    across: rows.across,
+    along: halfV.map((h) => 2 * h),
+    nodeGap: spacing.node,
+    edgeGap: spacing.edge,
+    layerGap: spacing.layer,
+    area: keepable[0]!.layout.width * keepable[0]!.layout.height,
+    from: fewest,
+    to: fewest + AREA_EXTRA_ROWS,
+    cap,
+    guides: keepable.map((c) => rowsOf(g, c.layout)),
+    written: writtenOrderVertices(g, out[0]!.layout),
+    budget: {tests: AREA_TESTS, work: AREA_WORK, steps: AREA_STEPS},
+    perSearch: AREA_PER_SEARCH,
+    step: AREA_STEP,
+    measure: (level, orders) => {
+      const layout = draw(level, writtenOrderFacing(g, level, orders))
+      if (!kept(layout) || layout.width * layout.height > cap(rowCount(layout))) return Infinity
+      out.push({layout, kind: 'area-searched', balanced: false})
+      return layout.width * layout.height
+    },
+  })
   return out
 }
 
@@ -550,8 +618,13 @@ function writtenPlaces(g: Digraph): OrderPreference {
  * O(m log m).
  */
 export function writtenOrderKept(g: Digraph, layout: Layout): number {
+  return writtenOrderVertices(g, layout).length
+}
+
+/** The vertices writtenOrderKept counts, in id order. O(m log m). */
+function writtenOrderVertices(g: Digraph, layout: Layout): number[] {
   const sideways = layout.flow === 'left' || layout.flow === 'right'
-  let kept = 0
+  const kept: number[] = []
   for (let v = 0; v < g.vertexCount; v++) {
     const from = g.outStart[v]!
     const to = g.outStart[v + 1]!
@@ -560,9 +633,25 @@ export function writtenOrderKept(g: Digraph, layout: Layout): number {
     const at = (e: number): number => layout.edges[e]!.points[0]![sideways ? 1 : 0]
     let ok = true
     for (let i = 1; i < edges.length && ok; i++) ok = at(edges[i - 1]!) < at(edges[i]!)
-    if (ok) kept++
+    if (ok) kept.push(v)
   }
   return kept
+}
+
+/**
+ * Each vertex's row in a layered drawing: the rank of its box centre along the flow, 0 on the
+ * sources' side (boxes of one row share their band's centre). O(n log n).
+ */
+function rowsOf(g: Digraph, layout: Layout): Int32Array {
+  const sideways = layout.flow === 'left' || layout.flow === 'right'
+  const at = new Map<number, number>()
+  for (const node of layout.nodes) at.set(node.vertex, Math.round((sideways ? node.x : node.y) * 100))
+  const keys = Array.from(new Set(at.values())).sort((a, b) => a - b)
+  const e = 0
+  // Reversed when the first edge's tail lies further along the axis than its head.
+  const turned = g.edgeCount > 0 && at.get(g.tail[e]!)! > at.get(g.head[e]!)!
+  const index = new Map(keys.map((k, i) => [k, turned ? keys.length - 1 - i : i]))
+  return Int32Array.from({length: g.vertexCount}, (_, v) => index.get(at.get(v)!)!)
 }
 
 /** Rows of boxes: distinct box centres along the flow (boxes of one row share their band's centre). */

@@ -1,0 +1,70 @@
+/**
+ * The area-searched candidate of layoutSmallest (layout/area-search.ts): on the North DAG g.10.93
+ * (/work/shared/data/north, see SOURCE.md there) with the layout bench's boxes (labels `item N`, every
+ * seventh with a second line, labelBox) it draws a drawing smaller than the reference library's,
+ * which no candidate before it that layoutSmallest may keep does.
+ *
+ * Reference: @dagrejs/dagre 3.1.3 (a layered layout that allows crossings) with the same boxes and
+ * gaps, as bench/support/dagre-layout.ts calls it; issue 5 asks for no more than its area. Before the
+ * candidate the st-layout was kept at 1.021 of it (bench/README.md, "Smallest drawing": the
+ * same-height rule kept it); bench/area-bound.ts found a 4-row assignment drawn at 0.902 of it
+ * without the written order.
+ */
+import dagre from '@dagrejs/dagre'
+import {describe, expect, it} from 'vitest'
+import {stAugment} from '../src/augment/index.ts'
+import {createDigraph, type Digraph} from '../src/graph/digraph.ts'
+import {defaultSpacing, layoutCandidates, layoutSmallest, writtenOrderKept, type Layout} from '../src/layout/index.ts'
+import {SAME_ROWS_GAIN} from '../src/layout/smallest-layout.ts'
+import {labelBox} from '../src/measure/index.ts'
+import {testUpwardPlanarity} from '../src/upward/index.ts'
+import {checkDrawing} from './support/geometry-check.ts'
+import {readGraphml} from './support/graphml.ts'
+import {northDir} from './support/north-dags.ts'
+
+type Box = {width: number; height: number}
+
+/** dagre's reported area with our boxes and gaps, flow up (bench/support/dagre-layout.ts's call). */
+function dagreArea(g: Digraph, boxes: Box[]): number {
+  const d = new dagre.graphlib.Graph({multigraph: true})
+  d.setGraph({rankdir: 'BT', nodesep: defaultSpacing.node, edgesep: defaultSpacing.edge, ranksep: defaultSpacing.layer, marginx: 0, marginy: 0})
+  d.setDefaultEdgeLabel(() => ({}))
+  for (let v = 0; v < g.vertexCount; v++) d.setNode(String(v), {...boxes[v]!})
+  for (let e = 0; e < g.edgeCount; e++) d.setEdge(String(g.tail[e]), String(g.head[e]), {}, String(e))
+  dagre.layout(d)
+  return (d.graph().width ?? 0) * (d.graph().height ?? 0)
+}
+
+const rows = (l: Layout): number => new Set(l.nodes.map((n) => n.y)).size
+const area = (l: Layout): number => l.width * l.height
+
+describe('area-searched candidate', () => {
+  it('g.10.93: draws under dagre\'s area where the candidates before it keep nothing that small', () => {
+    const {vertexCount, edges} = readGraphml(`${northDir}/g.10.93.graphml`)
+    const g = createDigraph(vertexCount, edges)
+    const res = testUpwardPlanarity(g)
+    expect(res.status).toBe('upward')
+    if (res.status !== 'upward') return
+    const st = stAugment(res.upward)
+    const boxes = Array.from({length: vertexCount}, (_, v) => labelBox(v % 7 === 3 ? `item ${v}\nsecond line` : `item ${v}`)).map((b) => ({width: b.width, height: b.height}))
+    const input = {graph: g, st, boxes, flow: 'up' as const}
+    const reference = dagreArea(g, boxes)
+    const drawn = layoutCandidates(input)
+    const stLayout = drawn[0]!.layout
+    // What layoutSmallest may keep: the written order of the st-layout, and the same-height rule.
+    const keepable = (l: Layout): boolean =>
+      writtenOrderKept(g, l) >= writtenOrderKept(g, stLayout) && (rows(l) < rows(stLayout) || area(l) <= SAME_ROWS_GAIN * area(stLayout))
+    const first = drawn.findIndex((d) => d.kind === 'area-searched')
+    expect(first).toBeGreaterThan(0)
+    const before = drawn.slice(0, first).filter((d, k) => k === 0 || keepable(d.layout))
+    expect(Math.min(...before.map((d) => area(d.layout)))).toBeGreaterThan(reference)
+    const searched = drawn.slice(first)
+    expect(searched.every((d) => d.kind === 'area-searched')).toBe(true)
+    for (const d of searched) expect(checkDrawing(g, d.layout, {boxes})).toEqual({ok: true})
+    const below = searched.filter((d) => keepable(d.layout) && area(d.layout) < reference)
+    expect(below.length).toBeGreaterThan(0)
+    const kept = layoutSmallest(input)
+    expect(kept.kind).toBe('area-searched')
+    expect(area(kept.layout)).toBeLessThan(reference)
+  })
+})
