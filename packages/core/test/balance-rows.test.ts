@@ -11,7 +11,7 @@
  */
 import {describe, expect, it} from 'vitest'
 import {createDigraph, type Digraph} from '../src/graph/digraph.ts'
-import {dropEmptyLevels, evenRows} from '../src/layout/balance-rows.ts'
+import {dropEmptyLevels, evenRows, evenRowsWithSpare} from '../src/layout/balance-rows.ts'
 import {longestPathUp} from '../src/layout/layering.ts'
 import {prng} from './support/layout-st-generator.ts'
 
@@ -94,5 +94,39 @@ describe('evenRows', () => {
     expect(Math.max(...top)).toBe(4)
     const before = Math.max(...widths(g, level, across, 4))
     expect(Math.max(...widths(g, top, across, 5))).toBeLessThan(before)
+  })
+})
+
+describe('evenRowsWithSpare', () => {
+  it('gives each result one level more at most, edges rising, no empty level, none equal to the input', () => {
+    const rand = prng(99)
+    let found = 0
+    for (let t = 0; t < 200; t++) {
+      const n = 3 + Math.floor(rand() * 12)
+      const g = randomDag(rand, n, 0.15 + rand() * 0.3)
+      const across = Array.from({length: n}, () => 40 + Math.floor(rand() * 80))
+      const level = longestPathUp(g)
+      const height = Math.max(...level) + 1
+      const results = evenRowsWithSpare(g, level, across, NODE_GAP, EDGE_GAP)
+      for (const r of results) {
+        found++
+        const h = Math.max(...r) + 1
+        expect(h).toBeLessThanOrEqual(height + 1)
+        expect(new Set(r).size).toBe(h)
+        expect(Array.from(r)).not.toEqual(Array.from(level))
+        for (let e = 0; e < g.edgeCount; e++) expect(r[g.tail[e]!]!).toBeLessThan(r[g.head[e]!]!)
+      }
+      expect(new Set(results.map((r) => r.join())).size).toBe(results.length)
+    }
+    expect(found).toBeGreaterThan(50)
+  })
+
+  it('moves a fan of sources below the bottom row', () => {
+    // Sources 0..4 all point to 5, which points to 6: the bottom row is the widest.
+    const g = createDigraph(7, [[0, 5], [1, 5], [2, 5], [3, 5], [4, 5], [5, 6]])
+    const across = new Array(7).fill(60)
+    const level = longestPathUp(g)
+    const results = evenRowsWithSpare(g, level, across, NODE_GAP, EDGE_GAP)
+    expect(results.some((r) => Math.max(...r) === 3 && Math.max(...widths(g, r, across, 4)) < Math.max(...widths(g, level, across, 3)))).toBe(true)
   })
 })
