@@ -32,15 +32,20 @@ function randomDag(rand: () => number, n: number, p: number): Digraph {
   return createDigraph(n, edges)
 }
 
+/** A random DAG with boxes across the flow, and its longest-path levels (draws in this order). */
+function randomCase(rand: () => number, sizes: number, density: number): {n: number; g: Digraph; across: number[]; level: Int32Array} {
+  const n = 3 + Math.floor(rand() * sizes)
+  const g = randomDag(rand, n, density + rand() * 0.3)
+  const across = Array.from({length: n}, () => 40 + Math.floor(rand() * 80))
+  return {n, g, across, level: longestPathUp(g)}
+}
+
 describe('evenRows', () => {
   it('keeps edges rising and levels in range, and never widens the widest row (random DAGs, with and without a spare level)', () => {
     const rand = prng(20261203)
     let moved = 0
     for (let t = 0; t < 300; t++) {
-      const n = 3 + Math.floor(rand() * 12)
-      const g = randomDag(rand, n, 0.15 + rand() * 0.3)
-      const across = Array.from({length: n}, () => 40 + Math.floor(rand() * 80))
-      const level = longestPathUp(g)
+      const {n, g, across, level} = randomCase(rand, 12, 0.15)
       const height = Math.max(...level) + 1
       for (const spare of [0, 1]) {
         const levels = height + spare
@@ -60,10 +65,7 @@ describe('evenRows', () => {
     const rand = prng(7)
     let settled = 0
     for (let t = 0; t < 200; t++) {
-      const n = 3 + Math.floor(rand() * 9)
-      const g = randomDag(rand, n, 0.2 + rand() * 0.3)
-      const across = Array.from({length: n}, () => 40 + Math.floor(rand() * 80))
-      const level = longestPathUp(g)
+      const {n, g, across, level} = randomCase(rand, 9, 0.2)
       const levels = Math.max(...level) + 2
       if (evenRows(g, level, across, NODE_GAP, EDGE_GAP, levels)) continue
       settled++
@@ -102,10 +104,7 @@ describe('evenRowsWithSpare', () => {
     const rand = prng(99)
     let found = 0
     for (let t = 0; t < 200; t++) {
-      const n = 3 + Math.floor(rand() * 12)
-      const g = randomDag(rand, n, 0.15 + rand() * 0.3)
-      const across = Array.from({length: n}, () => 40 + Math.floor(rand() * 80))
-      const level = longestPathUp(g)
+      const {g, across, level} = randomCase(rand, 12, 0.15)
       const height = Math.max(...level) + 1
       const results = evenRowsWithSpare(g, level, across, NODE_GAP, EDGE_GAP)
       for (const r of results) {
