@@ -313,6 +313,81 @@ describe('searchLevels against exhaustive enumeration', () => {
     expect(none).toBeGreaterThan(30)
   })
 
+  it('with an area bound, agrees with enumeration of the assignments whose widest least row times height stays under it', () => {
+    // Reference per whole assignment, counted here: levels without boxes dropped; the widest row's
+    // boxes plus the least gaps over every pattern of its boxes and bends (bruteGaps); the height, each
+    // row's tallest box plus a layer gap between consecutive rows, half of it next to a row whose
+    // tallest box has no extent (banded-drawing.ts's bandCentres). The area bound drawn at the least
+    // such area (none below it), just above it, and between the least and the largest; boxes one or
+    // two lines tall, some of no extent. So every assignment the search rules out by the area really
+    // is at least the bound, and the culprits are enough: leaving out the tallest box of each row
+    // answers a wrong "none" here, and so does blaming only those and the widest row's vertices when
+    // the whole assignment is ruled out with its rows' own bends (another assignment with the same
+    // levels of those vertices can have more bends on that row, which can narrow it).
+    const rand = prng(20261207)
+    const failures: string[] = []
+    let found = 0
+    let none = 0
+    for (let c = 0; c < 300; c++) {
+      const n = 5 + Math.floor(rand() * 5)
+      const g = randomDag(rand, n, 0.25 + rand() * 0.35)
+      if (g.edgeCount === 0) continue
+      const across = Array.from({length: n}, () => 20 + Math.floor(rand() * 60))
+      const along = Array.from({length: n}, () => [0, 18, 18, 18, 34, 34][Math.floor(rand() * 6)]!)
+      const rows = Math.max(...longestPathUp(g)) + 1 + Math.floor(rand() * 3)
+      const gaps = {nodeGap: 5 + Math.floor(rand() * 40), edgeGap: rand() < 0.3 ? 40 + Math.floor(rand() * 60) : 2 + Math.floor(rand() * 30)}
+      const layerGap = 10 + Math.floor(rand() * 40)
+      const areaOf = (level: Int32Array): number => {
+        const row = new Map<number, {width: number; boxes: number; bends: number; tallest: number}>()
+        for (let v = 0; v < n; v++) {
+          const r = row.get(level[v]!) ?? {width: 0, boxes: 0, bends: 0, tallest: 0}
+          r.width += across[v]!
+          r.boxes++
+          r.tallest = Math.max(r.tallest, along[v]!)
+          row.set(level[v]!, r)
+        }
+        for (let e = 0; e < g.edgeCount; e++) for (let l = level[g.tail[e]!]! + 1; l < level[g.head[e]!]!; l++) if (row.has(l)) row.get(l)!.bends++
+        const used = Array.from(row.keys()).sort((a, b) => a - b)
+        let widest = 0
+        let height = 0
+        used.forEach((l, k) => {
+          const r = row.get(l)!
+          widest = Math.max(widest, r.width + bruteGaps(r.boxes, r.bends, gaps.nodeGap, gaps.edgeGap))
+          height += r.tallest
+          if (k > 0) height += row.get(used[k - 1]!)!.tallest > 0 && r.tallest > 0 ? layerGap : layerGap / 2
+        })
+        return widest * height
+      }
+      const areas: number[] = []
+      existsByEnumeration(g, rows, (level) => {
+        if (testLevelPlanarity(g, level).status === 'planar') areas.push(areaOf(level))
+        return false
+      })
+      if (areas.length === 0) continue
+      const lo = Math.min(...areas)
+      const hi = Math.max(...areas)
+      for (const below of [lo, lo + 0.5, lo + rand() * (hi - lo + 1)]) {
+        const expected = areas.some((a) => a < below)
+        const guide = Int32Array.from({length: n}, () => Math.floor(rand() * rows))
+        const bound = {across, ...gaps, below: Infinity, estimate: 'least' as const, area: {along, layerGap, below}}
+        for (const r of [searchLevels(g, rows, {tests: 1e6, work: 1e9}, undefined, bound), searchLevels(g, rows, {tests: 1e6, work: 1e9}, guide, bound)]) {
+          const label = `case ${c} rows ${rows} gaps ${gaps.nodeGap}/${gaps.edgeGap}/${layerGap} below ${below}`
+          if (r.status === 'stopped') failures.push(`${label}: stopped`)
+          else if ((r.status === 'found') !== expected) failures.push(`${label}: ${r.status}, enumeration says ${expected}`)
+          if (r.status === 'none') none++
+          if (r.status !== 'found') continue
+          found++
+          const bad = checkFound(g, rows, r.level, r.orders)
+          if (bad) failures.push(`${label}: ${bad}`)
+          if (areaOf(r.level) >= below) failures.push(`${label}: area ${areaOf(r.level)}, not below ${below}`)
+        }
+      }
+    }
+    expect(failures).toEqual([])
+    expect(found).toBeGreaterThan(200)
+    expect(none).toBeGreaterThan(200)
+  })
+
   it('stops within its budget and spends it in place, deterministically', () => {
     const {vertexCount, edges} = readGraphml(`${northDir}/g.37.18.graphml`)
     const g = createDigraph(vertexCount, edges)

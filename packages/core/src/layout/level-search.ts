@@ -32,7 +32,9 @@
  * culprits the placed vertices on that row and the ends of the placed edges passing it; so a "none"
  * says no level-planar assignment has every row narrower (branch and bound on the widest row). With
  * the 'least' estimate (row-bound.ts) that "none" holds for the drawn rows: no drawing of any
- * level-planar assignment within the rows has every row narrower than the bound.
+ * level-planar assignment within the rows has every row narrower than the bound. With an area bound
+ * as well (RowWidthBound.area), the widest row times the height of the rows used so far (their
+ * tallest boxes and the layer gaps) must stay below it; both only grow as vertices are placed.
  *
  * With `written` (vertices whose out-edges must leave left to right in written order, edge id
  * order), every test also gets forced pairs (level-planarity.ts): for each such vertex placed, the
@@ -96,6 +98,29 @@ export interface RowWidthBound {
   below: number
   /** 'sum' (the default): balance-rows.ts's estimate; 'least': row-bound.ts's lower bound. */
   estimate?: 'sum' | 'least' | undefined
+  /**
+   * Also: the widest row times the height (rowsHeight: each row's tallest box, `along` its extents,
+   * and the layer gaps between the rows) must stay below `below`. With 'least' that product is a
+   * lower bound on the drawn area, so a "none" says no drawing of these rows is smaller.
+   */
+  area?: {along: ArrayLike<number>; layerGap: number; below: number} | undefined
+}
+
+/**
+ * The height of rows whose tallest boxes are `tallest` (negative: a level without boxes, dropped):
+ * their sum, and a layer gap between consecutive rows, half of it next to a row of no extent (as
+ * banded-drawing.ts's bandCentres separates bands). O(L).
+ */
+export function rowsHeight(tallest: ArrayLike<number>, layerGap: number): number {
+  let total = 0
+  let last = -1
+  for (let r = 0; r < tallest.length; r++) {
+    if (tallest[r]! < 0) continue
+    total += tallest[r]!
+    if (last >= 0) total += tallest[last]! > 0 && tallest[r]! > 0 ? layerGap : layerGap / 2
+    last = r
+  }
+  return total
 }
 
 /** The widest row of an assignment, by the estimate of RowWidthBound. O(n + m + L · m) at worst. */
@@ -315,6 +340,46 @@ export function searchLevels(g: Digraph, rows: number, budget: LevelSearchBudget
     }
     return out
   }
+  // The area bound (with `bound.area`), one more cut of the same kind: placing vertices only adds
+  // boxes and bends to rows (rowValue only grows, as above) and makes rows taller or used, and a
+  // used row adds its box and at least half a layer gap on each side it has a neighbour, so the
+  // height of the placed part (rowsHeight) never exceeds that of a completion: the widest row so far
+  // times it is at most the area of every completion (with 'least', of every drawing of one). The
+  // culprits: those of the widest row (as for the width bound), and on each used row the placed
+  // vertex with its tallest box (the first placed among equals). Any assignment that keeps these
+  // vertices' levels has that row at least as wide and each of those rows used and at least as tall,
+  // so it is ruled out as well. O(n + m + L) per level tried.
+  const tallestAt = bound?.area ? new Float64Array(rows) : undefined
+  const tallestBy = bound?.area ? new Int32Array(rows) : undefined
+  /** The culprits when the placed part through position i reaches the area bound, else undefined. */
+  const areaOver = (i: number): number[] | undefined => {
+    const a = bound?.area
+    if (!a) return undefined
+    tallestAt!.fill(-1)
+    for (let p = 0; p <= i; p++) {
+      const r = level[order[p]!]!
+      if (a.along[order[p]!]! > tallestAt![r]!) [tallestAt![r], tallestBy![r]] = [a.along[order[p]!]!, p]
+    }
+    const height = rowsHeight(tallestAt!, a.layerGap)
+    const widest = (final: boolean): [number, number] => {
+      let most = 0
+      let at = -1
+      for (let r = 0; r < rows; r++) if (rowValue(r, final) > most) [most, at] = [rowValue(r, final), r]
+      return [most, at]
+    }
+    // Rows counted at the least they can still come to: a row of another assignment that keeps the
+    // culprits' levels may have more bends, which can narrow it (leastGapsToCome).
+    const [most, at] = widest(false)
+    if (at >= 0 && most * height >= a.below) {
+      const out = widthCulprits(at, i)
+      for (let r = 0; r < rows; r++) if (tallestAt![r]! >= 0 && tallestBy![r]! < i) out.push(tallestBy![r]!)
+      return out
+    }
+    // The whole assignment with its own bends: ruled out, it blames every placed vertex (plain
+    // backtracking), since only this assignment is known to reach the bound.
+    if (i === n - 1 && widest(true)[0] * height >= a.below) return Array.from({length: i}, (_, p) => p)
+    return undefined
+  }
   const STOP = -3
   const SOLVED = -1
   /**
@@ -366,6 +431,12 @@ export function searchLevels(g: Digraph, rows: number, budget: LevelSearchBudget
         if (over >= 0) {
           widen(v, l, placed, -1)
           for (const p of widthCulprits(over, i)) mine.add(p)
+          continue
+        }
+        const large = areaOver(i)
+        if (large) {
+          widen(v, l, placed, -1)
+          for (const p of large) mine.add(p)
           continue
         }
       }
