@@ -4,7 +4,7 @@
  * References outside the module:
  * - leastGaps against brute force: every left-to-right pattern of b boxes and p bends, its gaps
  *   summed neighbour by neighbour.
- * - leastRowWidth and leastHeight against the drawings themselves, read off the Layout alone: rows
+ * - leastRowWidth, leastHeight and rowsHeight (each row's tallest box) against the drawings themselves, read off the Layout alone: rows
  *   are the distinct box centres along the flow, the edges passing a row are those whose ends stand on
  *   rows either side of it, and a row's drawn extent across the flow runs over its boxes and the points
  *   where the passing routes meet its centre line. Drawings: every drawing layoutCandidates makes
@@ -18,7 +18,7 @@ import {stAugment} from '../src/augment/index.ts'
 import {createDigraph, type Digraph} from '../src/graph/digraph.ts'
 import {layoutCandidates, layoutLevels, type BoxSize, type Flow, type Layout} from '../src/layout/index.ts'
 import {defaultSpacing} from '../src/layout/types.ts'
-import {leastGaps, leastGapsToCome, leastHeight, leastRowWidth, leastRowWidths} from '../src/layout/row-bound.ts'
+import {leastGaps, leastGapsToCome, leastHeight, leastRowWidth, leastRowWidths, rowsHeight} from '../src/layout/row-bound.ts'
 import {testLevelPlanarity} from '../src/level/level-planarity.ts'
 import {labelBox} from '../src/measure/index.ts'
 import {testUpwardPlanarity} from '../src/upward/index.ts'
@@ -77,8 +77,8 @@ describe('leastGaps and leastGapsToCome against brute force over every order', (
 const axes = (flow: Flow): {across: 0 | 1; along: 0 | 1} => (flow === 'left' || flow === 'right' ? {across: 1, along: 0} : {across: 0, along: 1})
 
 interface Reading {
-  /** Per row (in order along the flow): drawn extent across, least width by the bound, boxes. */
-  rows: Array<{extent: number; least: number}>
+  /** Per row (in order along the flow): drawn extent across, least width by the bound, tallest box along the flow. */
+  rows: Array<{extent: number; least: number; tallest: number}>
   /** Width across the flow and height along it, as the drawing reports them. */
   across: number
   along: number
@@ -126,7 +126,11 @@ function readRows(g: Digraph, layout: Layout, nodeGap: number, edgeGap: number):
         hi = Math.max(hi, x)
       }
     }
-    return {extent: hi - lo, least: leastRowWidth(boxWidth, boxes, bends, nodeGap, edgeGap)}
+    let tallest = 0
+    layout.nodes.forEach((n, v) => {
+      if (row[v] === r) tallest = Math.max(tallest, along === 1 ? n.height : n.width)
+    })
+    return {extent: hi - lo, least: leastRowWidth(boxWidth, boxes, bends, nodeGap, edgeGap), tallest}
   })
   return {rows, across: across === 0 ? layout.width : layout.height, along: along === 1 ? layout.height : layout.width}
 }
@@ -138,6 +142,7 @@ interface Tally {
   tightRows: number
   tightWidth: number
   tightHeight: number
+  tightRowsHeight: number
 }
 
 /** Checks one drawing's rows, width and height against the bounds; counts where they are met exactly. */
@@ -158,6 +163,9 @@ function checkBounds(label: string, g: Digraph, layout: Layout, boxes: ReadonlyA
   const height = leastHeight(boxes.map((b) => (along === 1 ? b.height : b.width)), read.rows.length, spacing.layer)
   if (read.along < height - EPS) t.failures.push(`${label}: height ${read.along}, bound ${height}`)
   if (Math.abs(read.along - height) < EPS) t.tightHeight++
+  const byRows = rowsHeight(read.rows.map((r) => r.tallest), spacing.layer)
+  if (read.along < byRows - EPS) t.failures.push(`${label}: height ${read.along}, rowsHeight ${byRows}`)
+  if (Math.abs(read.along - byRows) < EPS) t.tightRowsHeight++
 }
 
 describe('bounds hold on every drawing and are met on some', () => {
@@ -165,7 +173,7 @@ describe('bounds hold on every drawing and are met on some', () => {
   const chunks = 4
   for (let c = 0; c < chunks; c++) {
     it(`North DAGs, every drawing layoutCandidates makes, the layout bench's boxes (files ${c + 1}/${chunks})`, () => {
-      const t: Tally = {failures: [], drawings: 0, rows: 0, tightRows: 0, tightWidth: 0, tightHeight: 0}
+      const t: Tally = {failures: [], drawings: 0, rows: 0, tightRows: 0, tightWidth: 0, tightHeight: 0, tightRowsHeight: 0}
       for (let i = c; i < files.length; i += chunks) {
         const {vertexCount, edges} = readGraphml(`${northDir}/${files[i]!}`)
         const g = createDigraph(vertexCount, edges)
@@ -183,13 +191,14 @@ describe('bounds hold on every drawing and are met on some', () => {
       expect(t.tightRows).toBeGreaterThan(0)
       expect(t.tightWidth).toBeGreaterThan(0)
       expect(t.tightHeight).toBeGreaterThan(0)
+      expect(t.tightRowsHeight).toBeGreaterThan(0)
     })
   }
 
   it('random level-planar assignments drawn by layoutLevels, random boxes, gaps and flows', () => {
     const rand = prng(20261203)
     const flows: Flow[] = ['up', 'right', 'down', 'left']
-    const t: Tally = {failures: [], drawings: 0, rows: 0, tightRows: 0, tightWidth: 0, tightHeight: 0}
+    const t: Tally = {failures: [], drawings: 0, rows: 0, tightRows: 0, tightWidth: 0, tightHeight: 0, tightRowsHeight: 0}
     for (let c = 0; c < 600; c++) {
       const n = 3 + Math.floor(rand() * 12)
       const edges: Array<[number, number]> = []
@@ -227,5 +236,6 @@ describe('bounds hold on every drawing and are met on some', () => {
     expect(t.tightRows).toBeGreaterThan(50)
     expect(t.tightWidth).toBeGreaterThan(50)
     expect(t.tightHeight).toBeGreaterThan(50)
+    expect(t.tightRowsHeight).toBeGreaterThan(50)
   })
 })

@@ -58,7 +58,7 @@ import {testLevelPlanarity, type ForcedPair, type LevelItem} from '../level/leve
 import {levelTestWork} from './level-candidates.ts'
 import {longestPathToSinks, longestPathUp, topologicalOrder} from './layering.ts'
 import {rowWidths} from './balance-rows.ts'
-import {leastGaps, leastGapsToCome} from './row-bound.ts'
+import {leastGaps, leastGapsToCome, rowsHeight} from './row-bound.ts'
 
 export type LevelSearch =
   | {status: 'found'; level: Int32Array; orders: LevelItem[][]}
@@ -104,23 +104,6 @@ export interface RowWidthBound {
    * lower bound on the drawn area, so a "none" says no drawing of these rows is smaller.
    */
   area?: {along: ArrayLike<number>; layerGap: number; below: number} | undefined
-}
-
-/**
- * The height of rows whose tallest boxes are `tallest` (negative: a level without boxes, dropped):
- * their sum, and a layer gap between consecutive rows, half of it next to a row of no extent (as
- * banded-drawing.ts's bandCentres separates bands). O(L).
- */
-export function rowsHeight(tallest: ArrayLike<number>, layerGap: number): number {
-  let total = 0
-  let last = -1
-  for (let r = 0; r < tallest.length; r++) {
-    if (tallest[r]! < 0) continue
-    total += tallest[r]!
-    if (last >= 0) total += tallest[last]! > 0 && tallest[r]! > 0 ? layerGap : layerGap / 2
-    last = r
-  }
-  return total
 }
 
 /** The widest row of an assignment, by the estimate of RowWidthBound. O(n + m + L · m) at worst. */

@@ -92,3 +92,22 @@ export function leastHeight(along: ArrayLike<number>, rows: number, layerGap: nu
   const gap = sorted[0]! > 0 ? layerGap : layerGap / 2
   return total + (rows - 1) * gap
 }
+
+/**
+ * The height of rows whose tallest boxes are `tallest` (negative: a level without boxes, dropped):
+ * their sum, and a layer gap between consecutive rows, half of it next to a row of no extent (as
+ * banded-drawing.ts's bandCentres separates bands). A lower bound on the extent along the flow of
+ * any layered drawing whose used rows include these with boxes at least this tall: a row more adds
+ * its band and at least half a layer gap on each side (see the top). O(L).
+ */
+export function rowsHeight(tallest: ArrayLike<number>, layerGap: number): number {
+  let total = 0
+  let last = -1
+  for (let r = 0; r < tallest.length; r++) {
+    if (tallest[r]! < 0) continue
+    total += tallest[r]!
+    if (last >= 0) total += tallest[last]! > 0 && tallest[r]! > 0 ? layerGap : layerGap / 2
+    last = r
+  }
+  return total
+}
