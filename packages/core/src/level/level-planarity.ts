@@ -94,15 +94,49 @@ export interface ForcedLevelPlanarityOptions extends LevelPlanarityOptions {
   forced: readonly ForcedPair[]
 }
 
+/** What the test reads of a graph: its edges. A Digraph is one; a caller testing many subgraphs can pass edge arrays without building adjacency lists. */
+export type LevelGraph = Pick<Digraph, 'vertexCount' | 'edgeCount' | 'tail' | 'head'>
+
+/**
+ * Working arrays kept between calls. Callers such as the level search (layout/level-search.ts) run
+ * thousands of small tests; allocating some twenty typed arrays for each cost more than the test on
+ * small graphs (and their backing stores, garbage-collector time). Each call takes the prefix it
+ * needs and fills it; the test is synchronous and does not call itself, and no answer refers to these
+ * arrays, so sharing them is safe.
+ */
+const pool = {
+  int32: [] as Int32Array[],
+  int8: [] as Int8Array[],
+  float64: [] as Float64Array[],
+}
+/** Arrays longer than this are not kept (one large test should not hold its memory for the process's life). */
+const POOL_LIMIT = 1 << 20
+/** Pooled array `slot` with room for `size` entries (contents undefined: the caller fills what it reads). */
+function pooled<T extends Int32Array | Int8Array | Float64Array>(list: T[], slot: number, size: number, make: (size: number) => T): T {
+  const have = list[slot]
+  if (have && have.length >= size) return have
+  if (size > POOL_LIMIT) return make(size)
+  const grown = make(Math.min(POOL_LIMIT, Math.max(size, 2 * (have?.length ?? 0), 64)))
+  list[slot] = grown
+  return grown
+}
+const ints = (slot: number, size: number): Int32Array => pooled(pool.int32, slot, size, (s) => new Int32Array(s))
+const bytes = (slot: number, size: number): Int8Array => pooled(pool.int8, slot, size, (s) => new Int8Array(s))
+const floats = (slot: number, size: number): Float64Array => pooled(pool.float64, slot, size, (s) => new Float64Array(s))
+
 /**
  * Throws RangeError unless every edge goes from a lower to a strictly higher level ≥ 0, and unless
  * each forced pair names two different items that lie on its level.
  */
-export function testLevelPlanarity(graph: Digraph, level: ArrayLike<number>, options?: LevelPlanarityOptions & {forced?: undefined}): LevelPlanarity
-export function testLevelPlanarity(graph: Digraph, level: ArrayLike<number>, options: ForcedLevelPlanarityOptions): ForcedLevelPlanarity
-export function testLevelPlanarity(graph: Digraph, level: ArrayLike<number>, options: LevelPlanarityOptions & {forced?: readonly ForcedPair[] | undefined} = {}): ForcedLevelPlanarity {
+export function testLevelPlanarity(graph: LevelGraph, level: ArrayLike<number>, options?: LevelPlanarityOptions & {forced?: undefined}): LevelPlanarity
+export function testLevelPlanarity(graph: LevelGraph, level: ArrayLike<number>, options: ForcedLevelPlanarityOptions): ForcedLevelPlanarity
+export function testLevelPlanarity(graph: LevelGraph, level: ArrayLike<number>, options: LevelPlanarityOptions & {forced?: readonly ForcedPair[] | undefined} = {}): ForcedLevelPlanarity {
   const n = graph.vertexCount
+  const m = graph.edgeCount
+  const gTail = graph.tail
+  const gHead = graph.head
   const rank = options.rank
+  const edgeRank = options.edgeRank
   const maxSteps = options.maxSteps ?? 5_000_000
   const maxWork = options.maxWork ?? 4_000_000
   for (let v = 0; v < n; v++) {
@@ -110,140 +144,208 @@ export function testLevelPlanarity(graph: Digraph, level: ArrayLike<number>, opt
     if (!Number.isInteger(l) || l < 0) throw new RangeError(`level[${v}] must be a whole number ≥ 0, got ${l}`)
   }
 
-  // 1. The proper graph: nodes 0..n-1 are the vertices, then one dummy per edge per inner level.
-  const nodeLevel: number[] = []
-  const nodeItem: LevelItem[] = []
-  const nodeRank: number[] = []
-  for (let v = 0; v < n; v++) {
-    nodeLevel.push(level[v]!)
-    nodeItem.push({kind: 'vertex', vertex: v})
-    nodeRank.push(rank ? rank[v]! : v)
-  }
-  /** Segments between consecutive levels: tail node, head node, input edge. */
-  const segTail: number[] = []
-  const segHead: number[] = []
-  const segEdge: number[] = []
+  // 1. The proper graph: nodes 0..n-1 are the vertices, then one dummy per edge per inner level, edge
+  // by edge; segments likewise, edge by edge from the tail up. Counted first, so typed arrays hold them.
   let maxLevel = 0
   for (let v = 0; v < n; v++) maxLevel = Math.max(maxLevel, level[v]!)
   let dummies = 0
-  /** Node of edge e's first dummy (on level[tail] + 1); the rest follow level by level. */
-  const firstDummy = new Int32Array(graph.edgeCount)
-  for (let e = 0; e < graph.edgeCount; e++) {
-    const u = graph.tail[e]!
-    const w = graph.head[e]!
+  for (let e = 0; e < m; e++) {
+    const u = gTail[e]!
+    const w = gHead[e]!
     if (level[w]! <= level[u]!) throw new RangeError(`edge ${e} (${u} -> ${w}) does not go up a level`)
     dummies += level[w]! - level[u]! - 1
   }
   if (dummies > maxWork) return {status: 'undecided'}
-  for (let e = 0; e < graph.edgeCount; e++) {
-    const u = graph.tail[e]!
-    const w = graph.head[e]!
+  const nodeCount = n + dummies
+  const segCount = m + dummies
+  const nodeLevel = ints(0, nodeCount)
+  /** The edge a dummy node lies on (vertices: −1). */
+  const nodeEdge = ints(1, nodeCount)
+  const nodeRank = floats(0, nodeCount)
+  const segTail = ints(2, segCount)
+  const segHead = ints(3, segCount)
+  const segEdge = ints(4, segCount)
+  /** Node of edge e's first dummy (on level[tail] + 1); the rest follow level by level. */
+  const firstDummy = ints(5, m)
+  // Every rank a whole number of moderate size (the default, vertex ids): then the sort below can
+  // use one numeric key per node instead of a comparison function.
+  let integral = true
+  for (let v = 0; v < n; v++) {
+    nodeLevel[v] = level[v]!
+    nodeEdge[v] = -1
+    const r = rank ? rank[v]! : v
+    nodeRank[v] = r
+    if (!(Number.isInteger(r) && Math.abs(r) < 2 ** 20)) integral = false
+  }
+  let node = n
+  let seg = 0
+  for (let e = 0; e < m; e++) {
+    const u = gTail[e]!
+    const w = gHead[e]!
     let previous = u
-    firstDummy[e] = nodeLevel.length
+    firstDummy[e] = node
+    // A dummy sits, by preference, between its ends' ranks: at its edge's place if given, else the tail's.
+    const r = edgeRank ? edgeRank[e]! : nodeRank[u]!
+    if (level[u]! + 1 < level[w]! && !(Number.isInteger(r) && Math.abs(r) < 2 ** 20)) integral = false
     for (let l = level[u]! + 1; l < level[w]!; l++) {
-      const dummy = nodeLevel.length
-      nodeLevel.push(l)
-      nodeItem.push({kind: 'edge', edge: e})
-      // A dummy sits, by preference, between its ends' ranks: at its edge's place if given, else the tail's.
-      nodeRank.push(options.edgeRank ? options.edgeRank[e]! : nodeRank[u]!)
-      segTail.push(previous)
-      segHead.push(dummy)
-      segEdge.push(e)
-      previous = dummy
+      nodeLevel[node] = l
+      nodeEdge[node] = e
+      nodeRank[node] = r
+      segTail[seg] = previous
+      segHead[seg] = node
+      segEdge[seg] = e
+      seg++
+      previous = node++
     }
-    segTail.push(previous)
-    segHead.push(w)
-    segEdge.push(e)
+    segTail[seg] = previous
+    segHead[seg] = w
+    segEdge[seg] = e
+    seg++
   }
 
   // Bound the quadratic part before building it.
-  const perLevel = new Float64Array(maxLevel + 1)
-  const perBand = new Float64Array(maxLevel + 1)
-  for (let node = 0; node < nodeLevel.length; node++) perLevel[nodeLevel[node]!]!++
-  for (const t of segTail) perBand[nodeLevel[t]!]!++
+  const perLevel = floats(1, maxLevel + 1).fill(0, 0, maxLevel + 1)
+  const perBand = floats(2, maxLevel + 1).fill(0, 0, maxLevel + 1)
+  for (let x = 0; x < nodeCount; x++) perLevel[nodeLevel[x]!]!++
+  for (let s = 0; s < segCount; s++) perBand[nodeLevel[segTail[s]!]!]!++
   let work = 0
-  for (let l = 0; l <= maxLevel; l++) work += (perLevel[l]! * (perLevel[l]! - 1)) / 2 + (perBand[l]! * (perBand[l]! - 1)) / 2
+  let equationRoom = 0
+  for (let l = 0; l <= maxLevel; l++) {
+    work += (perLevel[l]! * (perLevel[l]! - 1)) / 2 + (perBand[l]! * (perBand[l]! - 1)) / 2
+    equationRoom += (perBand[l]! * (perBand[l]! - 1)) / 2
+  }
   if (work > maxWork) return {status: 'undecided'}
 
-  // 2. Nodes per level in preference order; a node's position there names its pair variables.
-  const levels: number[][] = Array.from({length: maxLevel + 1}, () => [])
-  for (let node = 0; node < nodeLevel.length; node++) levels[nodeLevel[node]!]!.push(node)
-  for (const nodes of levels) nodes.sort((a, b) => nodeRank[a]! - nodeRank[b]! || a - b)
-  const position = new Int32Array(nodeLevel.length)
-  const varBase: number[] = []
+  // 2. Nodes per level in preference order (rank, then node id), as slices of one array:
+  // levelNodes[levelStart[l] .. levelStart[l + 1]). A node's position there names its pair variables.
+  const levelCount = maxLevel + 1
+  const levelStart = ints(6, levelCount + 1)
+  levelStart[0] = 0
+  for (let l = 0; l < levelCount; l++) levelStart[l + 1] = levelStart[l]! + perLevel[l]!
+  const levelNodes = ints(7, nodeCount)
+  const levelFill = ints(8, levelCount)
+  levelFill.set(levelStart.subarray(0, levelCount))
+  for (let x = 0; x < nodeCount; x++) levelNodes[levelFill[nodeLevel[x]!]!++] = x
+  if (integral) {
+    // rank · nodeCount + node orders by rank, then node; exact below 2^53.
+    const keys = floats(3, nodeCount)
+    for (let l = 0; l < levelCount; l++) {
+      const from = levelStart[l]!
+      const to = levelStart[l + 1]!
+      if (to - from < 2) continue
+      for (let p = from; p < to; p++) keys[p] = nodeRank[levelNodes[p]!]! * nodeCount + levelNodes[p]!
+      keys.subarray(from, to).sort()
+      for (let p = from; p < to; p++) {
+        const key = keys[p]!
+        levelNodes[p] = key - Math.floor(key / nodeCount) * nodeCount
+      }
+    }
+  } else {
+    for (let l = 0; l < levelCount; l++) {
+      const from = levelStart[l]!
+      const to = levelStart[l + 1]!
+      if (to - from < 2) continue
+      // A plain array and comparison, as ranks may be any numbers (NaN included).
+      const nodes = Array.from(levelNodes.subarray(from, to)).sort((a, b) => nodeRank[a]! - nodeRank[b]! || a - b)
+      levelNodes.set(nodes, from)
+    }
+  }
+  const position = ints(9, nodeCount)
+  /** First variable of each level; variables of the pair at positions i < j of a level of k nodes follow pairVar. */
+  const varBase = new Float64Array(levelCount)
   let varCount = 0
-  for (const nodes of levels) {
-    varBase.push(varCount)
-    nodes.forEach((node, i) => (position[node] = i))
-    varCount += (nodes.length * (nodes.length - 1)) / 2
+  for (let l = 0; l < levelCount; l++) {
+    varBase[l] = varCount
+    const from = levelStart[l]!
+    const k = levelStart[l + 1]! - from
+    for (let p = 0; p < k; p++) position[levelNodes[from + p]!] = p
+    varCount += (k * (k - 1)) / 2
   }
-  /** Variable of the pair at positions i < j of a level with k nodes. */
-  const pairVar = (l: number, i: number, j: number): number => {
-    const k = levels[l]!.length
-    return varBase[l]! + i * k - (i * (i + 1)) / 2 + (j - i - 1)
-  }
-  /** left(a, b) as a variable and a sign: value(left) = value(var) XOR flip. */
-  /** Level and positions (i < j) of each variable, filled in as variables are first used. */
-  const varLevel = new Int32Array(varCount)
-  const varI = new Int32Array(varCount)
-  const varJ = new Int32Array(varCount)
-  const variable = (l: number, i: number, j: number): number => {
-    const v = pairVar(l, i, j)
-    varLevel[v] = l
-    varI[v] = i
-    varJ[v] = j
-    return v
-  }
-  const literal = (a: number, b: number): [number, number] => {
-    const l = nodeLevel[a]!
+  /** Variable of the pair at positions i < j of level l. */
+  const pairVar = (l: number, i: number, j: number): number => varBase[l]! + i * (levelStart[l + 1]! - levelStart[l]!) - (i * (i + 1)) / 2 + (j - i - 1)
+  /** left(a, b) as a variable and a sign, value(left) = value(var) XOR flip, packed as 2 · var + flip. */
+  const literal = (a: number, b: number): number => {
     const i = position[a]!
     const j = position[b]!
-    return i < j ? [variable(l, i, j), 0] : [variable(l, j, i), 1]
+    return i < j ? 2 * pairVar(nodeLevel[a]!, i, j) : 2 * pairVar(nodeLevel[a]!, j, i) + 1
   }
 
-  // 3. Equations between segments of the same band, as an adjacency list with parity.
-  const eqA: number[] = []
-  const eqB: number[] = []
-  const eqParity: number[] = []
-  const eqSegs: number[] = []
-  const segsByBand: number[][] = Array.from({length: maxLevel}, () => [])
-  for (let s = 0; s < segTail.length; s++) segsByBand[nodeLevel[segTail[s]!]!]!.push(s)
-  for (const band of segsByBand) {
-    for (let x = 0; x < band.length; x++) {
-      for (let y = x + 1; y < band.length; y++) {
-        const s = band[x]!
-        const t = band[y]!
-        if (segTail[s] === segTail[t] || segHead[s] === segHead[t]) continue
-        const [va, fa] = literal(segTail[s]!, segTail[t]!)
-        const [vb, fb] = literal(segHead[s]!, segHead[t]!)
-        eqA.push(va)
-        eqB.push(vb)
-        eqParity.push(fa ^ fb)
-        eqSegs.push(s, t)
+  // 3. Equations between segments of the same band, in band order and, within a band, by segment
+  // pairs in segment order; then an adjacency list (CSR) of each variable's equations.
+  const eqA = ints(10, equationRoom)
+  const eqB = ints(11, equationRoom)
+  const eqParity = bytes(0, equationRoom)
+  const eqSegs = ints(12, 2 * equationRoom)
+  let eqCount = 0
+  const bandStart = ints(13, levelCount + 1)
+  bandStart[0] = 0
+  for (let l = 0; l < levelCount; l++) bandStart[l + 1] = bandStart[l]! + perBand[l]!
+  const bandSegs = ints(14, segCount)
+  const bandFill = ints(15, levelCount)
+  bandFill.set(bandStart.subarray(0, levelCount))
+  for (let s = 0; s < segCount; s++) bandSegs[bandFill[nodeLevel[segTail[s]!]!]!++] = s
+  /** Per segment of the band at hand: its tail's and head's positions on their levels. */
+  const tailAt = ints(16, segCount)
+  const headAt = ints(17, segCount)
+  for (let b = 0; b + 1 < levelCount; b++) {
+    const from = bandStart[b]!
+    const to = bandStart[b + 1]!
+    if (to - from < 2) continue
+    // Tails lie on level b, heads on b + 1.
+    const lowBase = varBase[b]!
+    const lowK = levelStart[b + 1]! - levelStart[b]!
+    const highBase = varBase[b + 1]!
+    const highK = levelStart[b + 2]! - levelStart[b + 1]!
+    for (let x = from; x < to; x++) {
+      tailAt[x] = position[segTail[bandSegs[x]!]!]!
+      headAt[x] = position[segHead[bandSegs[x]!]!]!
+    }
+    for (let x = from; x < to; x++) {
+      const s = bandSegs[x]!
+      const ts = tailAt[x]!
+      const hs = headAt[x]!
+      for (let y = x + 1; y < to; y++) {
+        const tt = tailAt[y]!
+        const ht = headAt[y]!
+        // Segments sharing an end (same node, same position) never cross.
+        if (ts === tt || hs === ht) continue
+        const fa = ts < tt ? 0 : 1
+        const fb = hs < ht ? 0 : 1
+        const ia = fa === 0 ? ts : tt
+        const ja = fa === 0 ? tt : ts
+        const ib = fb === 0 ? hs : ht
+        const jb = fb === 0 ? ht : hs
+        eqA[eqCount] = lowBase + ia * lowK - (ia * (ia + 1)) / 2 + (ja - ia - 1)
+        eqB[eqCount] = highBase + ib * highK - (ib * (ib + 1)) / 2 + (jb - ib - 1)
+        eqParity[eqCount] = fa ^ fb
+        eqSegs[2 * eqCount] = s
+        eqSegs[2 * eqCount + 1] = bandSegs[y]!
+        eqCount++
       }
     }
   }
-  const adjStart = new Int32Array(varCount + 1)
-  for (let q = 0; q < eqA.length; q++) {
+  const adjStart = ints(18, varCount + 1).fill(0, 0, varCount + 1)
+  for (let q = 0; q < eqCount; q++) {
     adjStart[eqA[q]! + 1]!++
     adjStart[eqB[q]! + 1]!++
   }
   for (let v = 0; v < varCount; v++) adjStart[v + 1]! += adjStart[v]!
-  const adj = new Int32Array(2 * eqA.length)
-  const fill = adjStart.slice(0, varCount)
-  for (let q = 0; q < eqA.length; q++) {
+  const adj = ints(19, 2 * eqCount)
+  const fill = ints(20, varCount)
+  fill.set(adjStart.subarray(0, varCount))
+  for (let q = 0; q < eqCount; q++) {
     adj[fill[eqA[q]!]!++] = q
     adj[fill[eqB[q]!]!++] = q
   }
 
   // 2-colouring by BFS: colour = value relative to the component root, which is set to true. Only
   // variables in some equation take part; the others are free (component −1).
-  const colour = new Int8Array(varCount)
-  const component = new Int32Array(varCount).fill(-1)
-  const parentEq = new Int32Array(varCount).fill(-1)
-  const depth = new Int32Array(varCount)
+  const colour = bytes(1, varCount).fill(0, 0, varCount)
+  const component = ints(21, varCount).fill(-1, 0, varCount)
+  const parentEq = ints(22, varCount).fill(-1, 0, varCount)
+  const depth = ints(23, varCount).fill(0, 0, varCount)
   const componentRoots: number[] = []
-  const queue = new Int32Array(varCount)
+  const queue = ints(24, varCount)
   for (let root = 0; root < varCount; root++) {
     if (component[root] !== -1 || adjStart[root] === adjStart[root + 1]) continue
     const c = componentRoots.length
@@ -265,15 +367,10 @@ export function testLevelPlanarity(graph: Digraph, level: ArrayLike<number>, opt
           depth[y] = depth[x]! + 1
           queue[tail++] = y
         } else if (colour[y] !== want) {
-          return {status: 'not-planar', edges: oddCycleEdges(x, y, q)}
+          return {status: 'not-planar', edges: equationPathEdges(x, y, [q])}
         }
       }
     }
-  }
-
-  /** Input edges of the odd cycle: both tree paths up to their meeting point, and the closing equation. */
-  function oddCycleEdges(x: number, y: number, closing: number): number[] {
-    return equationPathEdges(x, y, [closing])
   }
 
   /** Input edges of the equations on the tree path between variables x and y of one component, plus `equations`. */
@@ -309,8 +406,8 @@ export function testLevelPlanarity(graph: Digraph, level: ArrayLike<number>, opt
       return item.vertex
     }
     const e = item.edge
-    if (e < 0 || e >= graph.edgeCount || l <= level[graph.tail[e]!]! || l >= level[graph.head[e]!]!) throw new RangeError(`forced pair ${p}: edge ${e} does not pass level ${l}`)
-    return firstDummy[e]! + (l - level[graph.tail[e]!]! - 1)
+    if (e < 0 || e >= m || l <= level[gTail[e]!]! || l >= level[gHead[e]!]!) throw new RangeError(`forced pair ${p}: edge ${e} does not pass level ${l}`)
+    return firstDummy[e]! + (l - level[gTail[e]!]! - 1)
   }
   /** Per component, the forced pair that fixed its flip (−1: none yet). */
   const fixedBy = new Int32Array(componentRoots.length).fill(-1)
@@ -319,7 +416,9 @@ export function testLevelPlanarity(graph: Digraph, level: ArrayLike<number>, opt
     const a = nodeOf(left, l, p)
     const b = nodeOf(right, l, p)
     if (a === b) throw new RangeError(`forced pair ${p} names one item twice`)
-    const [v, value] = literal(a, b)
+    const packed = literal(a, b)
+    const v = Math.floor(packed / 2)
+    const value = packed % 2
     forcedVar[p] = v
     forcedValue[p] = value
     const c = component[v]!
@@ -344,6 +443,20 @@ export function testLevelPlanarity(graph: Digraph, level: ArrayLike<number>, opt
 
   // The witness: one value per component, transitivity propagated, backtracking on conflict. A free
   // variable forced by propagation is set on its own (named −1 − variable on the trail).
+  /** Level and positions (i < j) of each variable. O(P). */
+  const varLevel = ints(25, varCount)
+  const varI = ints(26, varCount)
+  const varJ = ints(27, varCount)
+  for (let l = 0, v = 0; l < levelCount; l++) {
+    const k = levelStart[l + 1]! - levelStart[l]!
+    for (let i = 0; i < k; i++) {
+      for (let j = i + 1; j < k; j++, v++) {
+        varLevel[v] = l
+        varI[v] = i
+        varJ[v] = j
+      }
+    }
+  }
   const componentCount = componentRoots.length
   const memberStart = new Int32Array(componentCount + 1)
   for (let v = 0; v < varCount; v++) if (component[v]! >= 0) memberStart[component[v]! + 1]!++
@@ -351,26 +464,56 @@ export function testLevelPlanarity(graph: Digraph, level: ArrayLike<number>, opt
   const memberList = new Int32Array(memberStart[componentCount]!)
   const memberFill = memberStart.slice(0, componentCount)
   for (let v = 0; v < varCount; v++) if (component[v]! >= 0) memberList[memberFill[component[v]!]!++] = v
-  /** Per level, k×k: +1 when the node at position i is left of the one at j, −1 right, 0 unknown. */
-  const relation = levels.map((nodes) => new Int8Array(nodes.length * nodes.length))
+  /**
+   * Per level, k×k from relBase[l]: +1 when the node at position i is left of the one at j, −1 right,
+   * 0 unknown. Always antisymmetric (both entries of a pair are set and cleared together), so a
+   * column can be read as the negated row.
+   */
+  const relBase = new Float64Array(levelCount)
+  let relSize = 0
+  for (let l = 0; l < levelCount; l++) {
+    relBase[l] = relSize
+    const k = levelStart[l + 1]! - levelStart[l]!
+    relSize += k * k
+  }
+  const relation = bytes(2, relSize).fill(0, 0, relSize)
   const assigned = new Int8Array(componentCount).fill(-1)
   const trail: number[] = []
   let steps = 0
 
-  /** Set variable v to `value` (0: position varI left of varJ) and propagate; false on conflict. */
+  /**
+   * Set variable v to `value` (0: position varI left of varJ) and propagate; false on conflict. One
+   * step per other position of the level, counted as it is reached (maxSteps).
+   */
   function setVariable(v: number, value: number, pending: number[]): boolean {
-    const [left, right] = value === 0 ? [varI[v]!, varJ[v]!] : [varJ[v]!, varI[v]!]
+    const left = value === 0 ? varI[v]! : varJ[v]!
+    const right = value === 0 ? varJ[v]! : varI[v]!
     const l = varLevel[v]!
-    const k = levels[l]!.length
-    const rel = relation[l]!
-    rel[left * k + right] = 1
-    rel[right * k + left] = -1
-    for (let w = 0; w < k; w++) {
-      if (++steps > maxSteps) return false
+    const k = levelStart[l + 1]! - levelStart[l]!
+    const base = relBase[l]!
+    const leftRow = base + left * k
+    const rightRow = base + right * k
+    relation[leftRow + right] = 1
+    relation[rightRow + left] = -1
+    // Positions 0 .. allowed − 1 may be reached within maxSteps; reaching the next one exceeds it.
+    const allowed = maxSteps - steps
+    const end = allowed < k ? Math.max(allowed, 0) : k
+    for (let w = 0; w < end; w++) {
       if (w === left || w === right) continue
-      // left < right and right < w force left < w; w < left forces w < right.
-      if (rel[right * k + w] === 1 && !force(l, left, w, pending)) return false
-      if (rel[w * k + left] === 1 && !force(l, w, right, pending)) return false
+      // left < right and right < w force left < w; w < left (left's row: −1) forces w < right.
+      if (relation[rightRow + w] === 1 && !force(l, left, w, pending)) {
+        steps += w + 1
+        return false
+      }
+      if (relation[leftRow + w] === -1 && !force(l, w, right, pending)) {
+        steps += w + 1
+        return false
+      }
+    }
+    steps += end
+    if (end < k) {
+      steps++
+      return false
     }
     return true
   }
@@ -390,8 +533,9 @@ export function testLevelPlanarity(graph: Digraph, level: ArrayLike<number>, opt
       const id = pending.pop()!
       if (id < 0) {
         const v = -1 - id
-        const k = levels[varLevel[v]!]!.length
-        const known = relation[varLevel[v]!]![varI[v]! * k + varJ[v]!]!
+        const l = varLevel[v]!
+        const k = levelStart[l + 1]! - levelStart[l]!
+        const known = relation[relBase[l]! + varI[v]! * k + varJ[v]!]!
         if (known !== 0) {
           if (known !== (flip === 0 ? 1 : -1)) return false
           continue
@@ -416,11 +560,11 @@ export function testLevelPlanarity(graph: Digraph, level: ArrayLike<number>, opt
 
   /** Require position a left of position b on level l: conflict, nothing to do, or a pending entry. */
   function force(l: number, a: number, b: number, pending: number[]): boolean {
-    const k = levels[l]!.length
-    const known = relation[l]![a * k + b]!
+    const k = levelStart[l + 1]! - levelStart[l]!
+    const known = relation[relBase[l]! + a * k + b]!
     if (known === 1) return true
     if (known === -1) return false
-    const v = a < b ? variable(l, a, b) : variable(l, b, a)
+    const v = a < b ? pairVar(l, a, b) : pairVar(l, b, a)
     // Wanted value of v: 0 when the smaller position is on the left.
     const value = a < b ? 0 : 1
     if (component[v]! < 0) pending.push(-1 - v, value)
@@ -429,9 +573,10 @@ export function testLevelPlanarity(graph: Digraph, level: ArrayLike<number>, opt
   }
 
   function clearVariable(v: number): void {
-    const k = levels[varLevel[v]!]!.length
-    relation[varLevel[v]!]![varI[v]! * k + varJ[v]!] = 0
-    relation[varLevel[v]!]![varJ[v]! * k + varI[v]!] = 0
+    const l = varLevel[v]!
+    const k = levelStart[l + 1]! - levelStart[l]!
+    relation[relBase[l]! + varI[v]! * k + varJ[v]!] = 0
+    relation[relBase[l]! + varJ[v]! * k + varI[v]!] = 0
   }
 
   function undoTo(mark: number): void {
@@ -510,21 +655,24 @@ export function testLevelPlanarity(graph: Digraph, level: ArrayLike<number>, opt
   // The relation set so far is a strict partial order (closed under the propagation); the pairs no
   // equation mentions are free, so any linear extension completes it. Take the one nearest to rank
   // order: always the leftmost-ranked node with nothing unplaced to its left (Kahn, O(k²) a level).
-  const orders = levels.map((nodes, l) => {
-    const k = nodes.length
-    const rel = relation[l]!
+  const orders: LevelItem[][] = []
+  for (let l = 0; l < levelCount; l++) {
+    const from = levelStart[l]!
+    const k = levelStart[l + 1]! - from
+    const base = relBase[l]!
     const before = new Int32Array(k)
-    for (let i = 0; i < k; i++) for (let j = 0; j < k; j++) if (rel[j * k + i] === 1) before[i]!++
+    for (let i = 0; i < k; i++) for (let j = 0; j < k; j++) if (relation[base + j * k + i] === 1) before[i]!++
     const done = new Uint8Array(k)
     const placed: LevelItem[] = []
     while (placed.length < k) {
       let pick = 0
       while (done[pick] || before[pick] !== 0) pick++
       done[pick] = 1
-      placed.push(nodeItem[nodes[pick]!]!)
-      for (let j = 0; j < k; j++) if (rel[pick * k + j] === 1) before[j]!--
+      const x = levelNodes[from + pick]!
+      placed.push(x < n ? {kind: 'vertex', vertex: x} : {kind: 'edge', edge: nodeEdge[x]!})
+      for (let j = 0; j < k; j++) if (relation[base + pick * k + j] === 1) before[j]!--
     }
-    return placed
-  })
+    orders.push(placed)
+  }
   return {status: 'planar', orders}
 }
