@@ -50,7 +50,7 @@
  * layerings are linear, O(n + m) per relaxation step.
  */
 import {createDigraph, type Digraph} from '../graph/digraph.ts'
-import {testLevelPlanarity, type LevelItem, type LevelPlanarity, type LevelPlanarityOptions} from '../level/level-planarity.ts'
+import {testLevelPlanarity, type LevelGraph, type LevelItem, type LevelPlanarity, type LevelPlanarityOptions} from '../level/level-planarity.ts'
 import type {StAugmentation} from '../augment/index.ts'
 import {dropEmptyLevels, evenRows} from './balance-rows.ts'
 import {layerByWeightedSpan, longestPathToSinks, longestPathUp, topologicalOrder} from './layering.ts'
@@ -422,7 +422,7 @@ export function ordersByRank(g: Digraph, level: Int32Array, rank: ArrayLike<numb
  * one level and pairs of segments between two consecutive levels, every edge passing a level being a
  * point there. O(n + m + L) for L levels.
  */
-export function levelTestWork(g: Digraph, level: Int32Array): number {
+export function levelTestWork(g: LevelGraph, level: Int32Array): number {
   let height = 0
   for (let v = 0; v < g.vertexCount; v++) height = Math.max(height, level[v]! + 1)
   const points = new Float64Array(height)

@@ -53,8 +53,8 @@
  * (level-planarity.ts), the number of tests bounded by `budget` (tests, and pairs set up as
  * levelTestWork counts them), deterministic counts; exponential without a budget.
  */
-import {createDigraph, type Digraph} from '../graph/digraph.ts'
-import {testLevelPlanarity, type ForcedPair, type LevelItem} from '../level/level-planarity.ts'
+import type {Digraph} from '../graph/digraph.ts'
+import {testLevelPlanarity, type ForcedPair, type LevelGraph, type LevelItem} from '../level/level-planarity.ts'
 import {levelTestWork} from './level-candidates.ts'
 import {longestPathToSinks, longestPathUp, topologicalOrder} from './layering.ts'
 import {rowWidths} from './balance-rows.ts'
@@ -186,39 +186,57 @@ export function searchLevels(g: Digraph, rows: number, budget: LevelSearchBudget
   const order = placingOrder(g, up, down)
   const position = new Int32Array(n)
   order.forEach((v, i) => (position[v] = i))
+  const adjacent = Array.from({length: n}, (_, v) => neighbours(g, v))
   const level = new Int32Array(n).fill(-1)
   let orders: LevelItem[][] | undefined
 
+  // The subgraph on the first `count` positions is G's edges with both ends placed (edgeEnd[e] <
+  // count), in G's edge order, vertex i the one placed i-th. Each test fills these arrays, allocated
+  // once, and passes them as edge arrays (no adjacency lists built). O(n + m) a test.
+  const m = g.edgeCount
+  const tailAt = new Int32Array(m)
+  const headAt = new Int32Array(m)
+  const edgeEnd = new Int32Array(m)
+  for (let e = 0; e < m; e++) {
+    tailAt[e] = position[g.tail[e]!]!
+    headAt[e] = position[g.head[e]!]!
+    edgeEnd[e] = Math.max(tailAt[e]!, headAt[e]!)
+  }
+  const subTail = new Int32Array(m)
+  const subHead = new Int32Array(m)
+  /** The subgraph's edge j is G's edgeOf[j]; G's edge e is the subgraph's subEdge[e] (when in it). */
+  const edgeOf = new Int32Array(m)
+  const subEdge = new Int32Array(m)
+  const placedLevel = new Int32Array(n)
   /**
    * The level test on the first `count` vertices of the order: true when planar, else the positions
    * of the ends of the odd cycle's edges (the placed vertices whose levels make it), or undefined
    * when the budget is spent or the test undecided (the search stops).
    */
   const test = (count: number): true | number[] | undefined => {
-    const edges: Array<[number, number]> = []
-    const edgeOf: number[] = []
-    for (let e = 0; e < g.edgeCount; e++) {
-      const a = position[g.tail[e]!]!
-      const b = position[g.head[e]!]!
-      if (a < count && b < count) {
-        edges.push([a, b])
-        edgeOf.push(e)
-      }
+    let k = 0
+    for (let e = 0; e < m; e++) {
+      if (edgeEnd[e]! >= count) continue
+      subTail[k] = tailAt[e]!
+      subHead[k] = headAt[e]!
+      edgeOf[k] = e
+      subEdge[e] = k++
     }
-    const sub = createDigraph(count, edges)
-    const subLevel = Int32Array.from({length: count}, (_, i) => level[order[i]!]!)
+    const sub: LevelGraph = {vertexCount: count, edgeCount: k, tail: subTail.subarray(0, k), head: subHead.subarray(0, k)}
+    for (let i = 0; i < count; i++) placedLevel[i] = level[order[i]!]!
+    const subLevel = placedLevel.subarray(0, count)
     const work = levelTestWork(sub, subLevel)
     if (budget.tests < 1 || work > budget.work) return undefined
     budget.tests--
     budget.work -= work
     const limits = {maxWork: 250_000, maxSteps: 250_000, decideOnly: count < n}
-    const pairs = written ? writtenPairs(sub, subLevel, written, position, edgeOf, count) : undefined
+    const pairs = written ? writtenPairs(g, subLevel, written, position, count, edgeEnd, subEdge, subHead) : undefined
     const r = pairs?.forced.length ? testLevelPlanarity(sub, subLevel, {...limits, forced: pairs.forced}) : testLevelPlanarity(sub, subLevel, limits)
     if (r.status === 'undecided') return undefined
-    if (r.status === 'not-planar') return r.edges.flatMap((e) => [sub.tail[e]!, sub.head[e]!])
+    if (r.status === 'not-planar') return r.edges.flatMap((e) => [subTail[e]!, subHead[e]!])
     if (r.status === 'forced-infeasible') {
       if (r.proof === 'search') return Array.from({length: count}, (_, p) => p)
-      return [...r.edges, ...r.pairs.flatMap((p) => pairs!.edges[p]!)].flatMap((e) => [sub.tail[e]!, sub.head[e]!])
+      return [...r.edges, ...r.pairs.flatMap((p) => pairs!.edges[p]!)].flatMap((e) => [subTail[e]!, subHead[e]!])
     }
     // Back to G's ids: the subgraph's vertex i is order[i], its edge j is G's edgeOf[j].
     if (count === n) orders = r.orders.map((items) => items.map((item): LevelItem => (item.kind === 'vertex' ? {kind: 'vertex', vertex: order[item.vertex]!} : {kind: 'edge', edge: edgeOf[item.edge]!})))
@@ -235,19 +253,30 @@ export function searchLevels(g: Digraph, rows: number, budget: LevelSearchBudget
   // and cutset decomposition", Artificial Intelligence 41(3), 1990): each odd cycle is kept as the
   // levels of its ends, filed under the latest of them. Those ends with those levels carry a
   // non-level-planar subgraph in any assignment, so when the search comes back to the same levels
-  // after a jump, they are ruled out without a test. nogoods[i]: flat [position, level, …] lists.
-  const nogoods: number[][][] = Array.from({length: n}, () => [])
+  // after a jump, they are ruled out without a test. Filed by the latest end's position and level
+  // (key position · rows + level), so a level tried there is checked only against the nogoods that
+  // give that very level; each a flat [vertex, level, …] list of the other ends, in recording order.
+  const nogoods = new Map<number, number[][]>()
   const record = (ends: number[]): void => {
     const members = Array.from(new Set(ends))
     let latest = -1
     for (const p of members) latest = Math.max(latest, p)
-    nogoods[latest]!.push(members.flatMap((p) => [p, level[order[p]!]!]))
+    // The other ends latest first: the later a position, the more often the search has moved it
+    // since, so a stale nogood tends to fail on its first comparison.
+    const others: number[] = []
+    for (const p of members.sort((a, b) => b - a)) if (p !== latest) others.push(order[p]!, level[order[p]!]!)
+    const key = latest * rows + level[order[latest]!]!
+    const filed = nogoods.get(key)
+    if (filed) filed.push(others)
+    else nogoods.set(key, [others])
   }
-  /** A recorded nogood of position i that the levels placed so far match, or undefined. */
-  const matching = (i: number): number[] | undefined => {
-    for (const ng of nogoods[i]!) {
+  /** The first recorded nogood of position i at level l that the levels placed so far match, or undefined. */
+  const matching = (i: number, l: number): number[] | undefined => {
+    const filed = nogoods.get(i * rows + l)
+    if (!filed) return undefined
+    for (const ng of filed) {
       let all = true
-      for (let k = 0; k < ng.length && all; k += 2) all = level[order[ng[k]!]!] === ng[k + 1]
+      for (let k = 0; k < ng.length && all; k += 2) all = level[ng[k]!] === ng[k + 1]
       if (all) return ng
     }
     return undefined
@@ -395,18 +424,23 @@ export function searchLevels(g: Digraph, rows: number, budget: LevelSearchBudget
         }
       }
     }
-    const placed = neighbours(g, v).filter((w) => position[w]! < i)
-    const span = (l: number): number => placed.reduce((s, w) => s + Math.abs(level[w]! - l), 0)
+    const placed = adjacent[v]!.filter((w) => position[w]! < i)
+    // Each level's keys once (the sort compares them many times).
     const levels: number[] = []
-    for (let l = lo; l <= hi; l++) levels.push(l)
-    const near = (l: number): number => (guide ? Math.abs(l - guide[v]!) : 0)
-    levels.sort((a, b) => near(a) - near(b) || span(a) - span(b) || a - b)
+    const near: number[] = []
+    const span: number[] = []
+    for (let l = lo; l <= hi; l++) {
+      levels.push(l)
+      near.push(guide ? Math.abs(l - guide[v]!) : 0)
+      span.push(placed.reduce((s, w) => s + Math.abs(level[w]! - l), 0))
+    }
+    levels.sort((a, b) => near[a - lo]! - near[b - lo]! || span[a - lo]! - span[b - lo]! || a - b)
     for (const l of levels) {
       if (budget.steps !== undefined && budget.steps-- < 1) return STOP
       level[v] = l
-      const known = matching(i)
+      const known = matching(i, l)
       if (known) {
-        for (let k = 0; k < known.length; k += 2) if (known[k] !== i) mine.add(known[k]!)
+        for (let k = 0; k < known.length; k += 2) mine.add(position[known[k]!]!)
         continue
       }
       if (width) {
@@ -469,22 +503,26 @@ export function searchLevels(g: Digraph, rows: number, budget: LevelSearchBudget
 }
 
 /**
- * The forced pairs of searchLevels's `written` vertices on a subgraph (vertex i is G's vertex placed
- * i-th, edge j is G's edgeOf[j]), and per pair the two subgraph edges that make it. O(m log m).
+ * The forced pairs of searchLevels's `written` vertices on the subgraph of the first `count`
+ * positions (vertex i is G's vertex placed i-th; G's edge e is the subgraph's subEdge[e] when
+ * edgeEnd[e] < count, and subHead holds the subgraph's heads), and per pair the two subgraph edges
+ * that make it. O(m log m).
  */
-function writtenPairs(sub: Digraph, level: Int32Array, written: readonly number[], position: Int32Array, edgeOf: readonly number[], count: number): {forced: ForcedPair[]; edges: Array<[number, number]>} {
+function writtenPairs(g: Digraph, level: Int32Array, written: readonly number[], position: Int32Array, count: number, edgeEnd: Int32Array, subEdge: Int32Array, subHead: Int32Array): {forced: ForcedPair[]; edges: Array<[number, number]>} {
   const forced: ForcedPair[] = []
   const edges: Array<[number, number]> = []
   for (const v of written) {
     const i = position[v]!
     if (i >= count) continue
     const above = level[i]! + 1
-    // Out-edges in the subgraph, in G's id order (the written order).
-    const outs = Array.from(sub.outEdges.subarray(sub.outStart[i]!, sub.outStart[i + 1]!)).sort((a, b) => edgeOf[a]! - edgeOf[b]!)
-    const item = (e: number): LevelItem => (level[sub.head[e]!] === above ? {kind: 'vertex', vertex: sub.head[e]!} : {kind: 'edge', edge: e})
+    // Out-edges in the subgraph, in G's id order (the written order); subgraph ids follow G's.
+    const outs: number[] = []
+    for (let x = g.outStart[v]!; x < g.outStart[v + 1]!; x++) if (edgeEnd[g.outEdges[x]!]! < count) outs.push(subEdge[g.outEdges[x]!]!)
+    outs.sort((a, b) => a - b)
+    const item = (e: number): LevelItem => (level[subHead[e]!] === above ? {kind: 'vertex', vertex: subHead[e]!} : {kind: 'edge', edge: e})
     for (let k = 1; k < outs.length; k++) {
       const [a, b] = [outs[k - 1]!, outs[k]!]
-      if (sub.head[a] === sub.head[b] && level[sub.head[a]!] === above) continue
+      if (subHead[a] === subHead[b] && level[subHead[a]!] === above) continue
       forced.push({level: above, left: item(a), right: item(b)})
       edges.push([a, b])
     }
