@@ -458,11 +458,12 @@ export function testLevelPlanarity(graph: LevelGraph, level: ArrayLike<number>, 
     }
   }
   const componentCount = componentRoots.length
-  const memberStart = new Int32Array(componentCount + 1)
+  const memberStart = ints(28, componentCount + 1).fill(0, 0, componentCount + 1)
   for (let v = 0; v < varCount; v++) if (component[v]! >= 0) memberStart[component[v]! + 1]!++
   for (let c = 0; c < componentCount; c++) memberStart[c + 1]! += memberStart[c]!
-  const memberList = new Int32Array(memberStart[componentCount]!)
-  const memberFill = memberStart.slice(0, componentCount)
+  const memberList = ints(29, memberStart[componentCount]!)
+  const memberFill = ints(30, componentCount)
+  memberFill.set(memberStart.subarray(0, componentCount))
   for (let v = 0; v < varCount; v++) if (component[v]! >= 0) memberList[memberFill[component[v]!]!++] = v
   /**
    * Per level, k×k from relBase[l]: +1 when the node at position i is left of the one at j, −1 right,
@@ -495,19 +496,33 @@ export function testLevelPlanarity(graph: LevelGraph, level: ArrayLike<number>, 
     const rightRow = base + right * k
     relation[leftRow + right] = 1
     relation[rightRow + left] = -1
+    const varFrom = varBase[l]!
     // Positions 0 .. allowed − 1 may be reached within maxSteps; reaching the next one exceeds it.
     const allowed = maxSteps - steps
     const end = allowed < k ? Math.max(allowed, 0) : k
     for (let w = 0; w < end; w++) {
-      if (w === left || w === right) continue
-      // left < right and right < w force left < w; w < left (left's row: −1) forces w < right.
-      if (relation[rightRow + w] === 1 && !force(l, left, w, pending)) {
-        steps += w + 1
-        return false
+      // rw: right before w (1) or after (−1); lw likewise for left; 0 unknown. At w = left or right
+      // neither rule below applies (rw = −1 or 0 there, lw = 0 or 1).
+      const rw = relation[rightRow + w]!
+      const lw = relation[leftRow + w]!
+      if (rw === 0 && lw === 0) continue
+      // left < right and right < w force left < w.
+      if (rw === 1 && lw !== 1) {
+        if (lw === -1) {
+          steps += w + 1
+          return false
+        }
+        const v = left < w ? varFrom + left * k - (left * (left + 1)) / 2 + (w - left - 1) : varFrom + w * k - (w * (w + 1)) / 2 + (left - w - 1)
+        const value = left < w ? 0 : 1
+        if (component[v]! < 0) pending.push(-1 - v, value)
+        else pending.push(component[v]!, colour[v]! ^ value)
       }
-      if (relation[leftRow + w] === -1 && !force(l, w, right, pending)) {
-        steps += w + 1
-        return false
+      // w < left and left < right force w < right (rw = 1 was a conflict above).
+      if (lw === -1 && rw === 0) {
+        const v = w < right ? varFrom + w * k - (w * (w + 1)) / 2 + (right - w - 1) : varFrom + right * k - (right * (right + 1)) / 2 + (w - right - 1)
+        const value = w < right ? 0 : 1
+        if (component[v]! < 0) pending.push(-1 - v, value)
+        else pending.push(component[v]!, colour[v]! ^ value)
       }
     }
     steps += end
@@ -555,20 +570,6 @@ export function testLevelPlanarity(graph: LevelGraph, level: ArrayLike<number>, 
         if (!setVariable(v, colour[v]! ^ flip, pending)) return false
       }
     }
-    return true
-  }
-
-  /** Require position a left of position b on level l: conflict, nothing to do, or a pending entry. */
-  function force(l: number, a: number, b: number, pending: number[]): boolean {
-    const k = levelStart[l + 1]! - levelStart[l]!
-    const known = relation[relBase[l]! + a * k + b]!
-    if (known === 1) return true
-    if (known === -1) return false
-    const v = a < b ? pairVar(l, a, b) : pairVar(l, b, a)
-    // Wanted value of v: 0 when the smaller position is on the left.
-    const value = a < b ? 0 : 1
-    if (component[v]! < 0) pending.push(-1 - v, value)
-    else pending.push(component[v]!, colour[v]! ^ value)
     return true
   }
 
