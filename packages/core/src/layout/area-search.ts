@@ -15,6 +15,10 @@
  * written order (forced pairs, level-search.ts), so its finds pass smallest-layout.ts's written-order
  * rule.
  *
+ * With `keeps` and `retry`, a row count where the st-layout's written-order set finds nothing is
+ * searched again with other sets of as many vertices (layoutSmallest counts how many vertices keep
+ * their written order, not which), with the rows' real heights in the bound (RowWidthBound.area).
+ *
  * The bound is a lower bound on the drawn area (row-bound.ts), so no assignment the search rules out
  * could have been drawn smaller; a find may still draw larger (coordinates add more than the least
  * gaps). Every search is bounded by `budget` (level tests, pairs they set up, levels tried),
@@ -23,7 +27,7 @@
 import type {Digraph} from '../graph/digraph.ts'
 import type {LevelItem} from '../level/level-planarity.ts'
 import {longestPathUp} from './layering.ts'
-import {searchLevels} from './level-search.ts'
+import {searchLevels, type LevelSearch} from './level-search.ts'
 import {leastHeight, leastWidth} from './row-bound.ts'
 
 export interface AreaSearchOptions {
@@ -48,6 +52,16 @@ export interface AreaSearchOptions {
   written?: readonly number[] | undefined
   /** Spent in place over every search. */
   budget: {tests: number; work: number; steps: number}
+  /**
+   * With `written`: the vertices whose out-edges the drawing of a find keeps in written order (the
+   * caller's count). A row count where the search with `written` finds nothing is then searched once
+   * more with other sets of as many vertices (see searchByArea) and searchLevels's area bound, on
+   * `retry`'s budget (spent in place), so the searches before it are the same as without it.
+   */
+  keeps?: ((level: Int32Array, orders: LevelItem[][]) => readonly number[]) | undefined
+  retry?: {tests: number; work: number; steps: number} | undefined
+  /** Most sets tried at one row count by the retry. */
+  retrySets?: number | undefined
   /** Most level tests one search may spend (so one row count cannot take the whole budget). */
   perSearch: number
   /** By how much (px) the next find at one row count must be narrower than the last. */
@@ -85,21 +99,62 @@ export function searchByArea(g: Digraph, o: AreaSearchOptions): void {
     if (average * height >= capped()) continue
     let guide: Int32Array | undefined
     for (const c of o.guides) if (!guide || Math.abs(rowsOf(c) - k) < Math.abs(rowsOf(guide) - k)) guide = c
-    let narrowest = Infinity
-    while (o.budget.tests > 0 && o.budget.steps > 0) {
-      const below = Math.min(capped() / height, narrowest - o.step)
-      if (below <= widestBox) break
-      const part = {tests: Math.min(o.perSearch, o.budget.tests), work: o.budget.work, steps: o.budget.steps}
-      const start = {...part}
-      const bound = {across: o.across, nodeGap: o.nodeGap, edgeGap: o.edgeGap, below, estimate: 'least' as const}
-      const r = searchLevels(g, k, part, guide, bound, o.written)
-      o.budget.tests -= start.tests - part.tests
-      o.budget.work -= start.work - part.work
-      o.budget.steps -= start.steps - part.steps
-      if (r.status !== 'found') break
-      narrowest = leastWidth(g, r.level, o.across, o.nodeGap, o.edgeGap)
-      area = Math.min(area, o.measure(r.level, r.orders))
-      guide = r.level
+    /**
+     * Finds at k, each narrower than the last and each drawn, while `budget` lasts; with `byArea`,
+     * searchLevels's area bound too (the rows' real heights). The status of the first search and
+     * the first find.
+     */
+    const narrowing = (written: readonly number[] | undefined, budget: Budget, byArea: boolean): {status?: LevelSearch['status']; find?: Found} => {
+      let narrowest = Infinity
+      let at = guide
+      const out: {status?: LevelSearch['status']; find?: Found} = {}
+      while (budget.tests > 0 && budget.steps > 0) {
+        const below = Math.min(capped() / height, narrowest - o.step)
+        if (below <= widestBox) break
+        const part = {tests: Math.min(o.perSearch, budget.tests), work: budget.work, steps: budget.steps}
+        const start = {...part}
+        const byHeight = byArea ? {along: o.along, layerGap: o.layerGap, below: capped()} : undefined
+        const bound = {across: o.across, nodeGap: o.nodeGap, edgeGap: o.edgeGap, below, estimate: 'least' as const, area: byHeight}
+        const r = searchLevels(g, k, part, at, bound, written)
+        budget.tests -= start.tests - part.tests
+        budget.work -= start.work - part.work
+        budget.steps -= start.steps - part.steps
+        out.status ??= r.status
+        if (r.status !== 'found') break
+        out.find ??= r
+        narrowest = leastWidth(g, r.level, o.across, o.nodeGap, o.edgeGap)
+        area = Math.min(area, o.measure(r.level, r.orders))
+        at = r.level
+      }
+      return out
+    }
+    const first = narrowing(o.written, o.budget, false)
+    if (first.status === 'found' || first.status === undefined || !o.written?.length || !o.keeps || !o.retry) continue
+    // Other written-order sets at k (ours), on the retry budget. The rule that keeps a level drawing
+    // counts how many vertices keep their out-edges in written order, not which, so a set as large
+    // as the st-layout's may have level-planar rows under the bound where its own has none (g.43.0).
+    // Searches without written order (and with the area bound), each find drawn (one may keep enough
+    // by itself); the vertices the first find keeps in order, S, propose the sets: S when it is as
+    // large as `written`, else `written` with one vertex swapped for one of S, at most retrySets.
+    const before = area
+    const free = narrowing(undefined, o.retry, true)
+    if (!free.find || area < before) continue
+    const kept = o.keeps(free.find.level, free.find.orders)
+    const sets: number[][] = []
+    const own = new Set(o.written)
+    if (kept.length >= o.written.length) sets.push([...kept])
+    else {
+      // Swaps for a vertex of S first, then (a set of one or two) for any other with two out-edges.
+      const others: number[] = []
+      if (o.written.length <= 2) for (let v = 0; v < g.vertexCount; v++) if (g.outStart[v + 1]! - g.outStart[v]! >= 2 && !own.has(v) && !kept.includes(v)) others.push(v)
+      for (const u of [...kept.filter((v) => !own.has(v)), ...others]) for (const w of o.written) sets.push([...o.written.filter((x) => x !== w), u].sort((a, b) => a - b))
+    }
+    for (const set of sets.slice(0, o.retrySets ?? 4)) {
+      narrowing(set, o.retry, true)
+      if (area < before || o.retry.tests < 1 || o.retry.steps < 1) break
     }
   }
 }
+
+type Budget = {tests: number; work: number; steps: number}
+type Found = {level: Int32Array; orders: LevelItem[][]}

@@ -95,6 +95,16 @@ const AREA_PER_SEARCH = 16
 const AREA_EXTRA_ROWS = 2
 const AREA_STEP = 0.5
 /**
+ * The area-searched candidate's retry with other written-order sets (area-search.ts): its own
+ * budget per diagram (level tests, pairs, levels tried) and the most sets tried at one row count;
+ * deterministic counts. Its own so that the searches before it are the same as without it. On the
+ * 813 North DAGs (2026-12-03, scratch A/B, bench's boxes): 21 drawn smaller, none larger, CPU 1.06x;
+ * 32 tests and 2,000 levels 29 smaller but one larger (g.22.19), so not taken (bench/README.md).
+ */
+const AREA_RETRY_TESTS = 16
+const AREA_RETRY_STEPS = 1_000
+const AREA_RETRY_SETS = 4
+/**
  * The candidate's own bar for more rows than the st-layout: at most this share of its area (the
  * same-height rule asks 0.8 of any drawing). Stretched over more rows than the diagram's paths give,
  * a drawing reads worse for its area: at 0.8 the golden diamond-down was redrawn with its two
@@ -231,6 +241,15 @@ export function layoutCandidates(input: LayoutInput, options: Readonly<SmallestL
     guides: keepable.map((c) => rowsOf(g, c.layout)),
     written: writtenOrderVertices(g, out[0]!.layout),
     budget: {tests: AREA_TESTS, work: AREA_WORK, steps: AREA_STEPS},
+    keeps: (level, orders) => {
+      const {wrong} = writtenOrderCounts(g, level, writtenOrderFacing(g, level, orders))
+      const out = new Set(wrong)
+      const kept: number[] = []
+      for (let v = 0; v < g.vertexCount; v++) if (g.outStart[v + 1]! - g.outStart[v]! >= 2 && !out.has(v)) kept.push(v)
+      return kept
+    },
+    retry: {tests: AREA_RETRY_TESTS, work: AREA_WORK, steps: AREA_RETRY_STEPS},
+    retrySets: AREA_RETRY_SETS,
     perSearch: AREA_PER_SEARCH,
     step: AREA_STEP,
     measure: (level, orders) => {
