@@ -229,14 +229,24 @@ export function searchLevels(g: Digraph, rows: number, budget: LevelSearchBudget
     if (budget.tests < 1 || work > budget.work) return undefined
     budget.tests--
     budget.work -= work
-    const limits = {maxWork: 250_000, maxSteps: 250_000, decideOnly: count < n}
+    const decideOnly = count < n
     const pairs = written ? writtenPairs(g, subLevel, written, position, count, edgeEnd, subEdge, subHead) : undefined
-    const r = pairs?.forced.length ? testLevelPlanarity(sub, subLevel, {...limits, forced: pairs.forced}) : testLevelPlanarity(sub, subLevel, limits)
+    const r = pairs?.forced.length ? testLevelPlanarity(sub, subLevel, {maxWork: 250_000, maxSteps: 250_000, decideOnly, forced: pairs.forced}) : testLevelPlanarity(sub, subLevel, {maxWork: 250_000, maxSteps: 250_000, decideOnly})
     if (r.status === 'undecided') return undefined
-    if (r.status === 'not-planar') return r.edges.flatMap((e) => [subTail[e]!, subHead[e]!])
+    if (r.status === 'not-planar') {
+      const ends: number[] = []
+      for (const e of r.edges) ends.push(subTail[e]!, subHead[e]!)
+      return ends
+    }
     if (r.status === 'forced-infeasible') {
-      if (r.proof === 'search') return Array.from({length: count}, (_, p) => p)
-      return [...r.edges, ...r.pairs.flatMap((p) => pairs!.edges[p]!)].flatMap((e) => [subTail[e]!, subHead[e]!])
+      const ends: number[] = []
+      if (r.proof === 'search') {
+        for (let p = 0; p < count; p++) ends.push(p)
+        return ends
+      }
+      for (const e of r.edges) ends.push(subTail[e]!, subHead[e]!)
+      for (const p of r.pairs) for (const e of pairs!.edges[p]!) ends.push(subTail[e]!, subHead[e]!)
+      return ends
     }
     // Back to G's ids: the subgraph's vertex i is order[i], its edge j is G's edgeOf[j].
     if (count === n) orders = r.orders.map((items) => items.map((item): LevelItem => (item.kind === 'vertex' ? {kind: 'vertex', vertex: order[item.vertex]!} : {kind: 'edge', edge: edgeOf[item.edge]!})))
