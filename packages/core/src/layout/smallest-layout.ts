@@ -98,11 +98,11 @@ const AREA_STEP = 0.5
  * The area-searched candidate's retry with other written-order sets (area-search.ts): its own
  * budget per diagram (level tests, pairs, levels tried) and the most sets tried at one row count;
  * deterministic counts. Its own so that the searches before it are the same as without it. On the
- * 813 North DAGs (2026-12-03, scratch A/B, bench's boxes): 21 drawn smaller, none larger, CPU 1.06x;
- * 32 tests and 2,000 levels 29 smaller but one larger (g.22.19), so not taken (bench/README.md).
+ * 813 North DAGs (2026-12-03, scratch A/B, bench's boxes): 24 drawn smaller, none larger, CPU 1.05x;
+ * 16 tests 21 smaller, 32 tests 28 or 29 smaller but one larger (g.22.19), 8 sets as 4 (bench/README.md).
  */
-const AREA_RETRY_TESTS = 16
-const AREA_RETRY_STEPS = 1_000
+const AREA_RETRY_TESTS = 24
+const AREA_RETRY_STEPS = 1_500
 const AREA_RETRY_SETS = 4
 /**
  * The candidate's own bar for more rows than the st-layout: at most this share of its area (the
