@@ -104,14 +104,16 @@ describe('North DAGs: every candidate drawing checked, rows against networkx', (
           if (k.kind !== 'st' && rows(k.layout) >= rows(drawn[0]!.layout) && area(k.layout) > SAME_ROWS_GAIN * area(drawn[0]!.layout) && rowPartition(k.layout) !== stRowsOf) failures.push(`${dag.file}: kept a same-height drawing without a clear gain`)
         }
         if (area(kept.layout) > area(drawn[0]!.layout)) failures.push(`${dag.file}: kept a drawing larger than the st-layout`)
-        // Written order: kept unless the smallest eligible drawing is at most WRITTEN_GAIN of every
-        // eligible drawing that keeps it (the st-layout among them); then that smallest one is kept.
+        // Written order: a drawing with k vertices fewer in written order than the st-layout only at
+        // WRITTEN_GAIN^k of the smallest eligible drawing that keeps it (the st-layout among them);
+        // and the kept drawing is the smallest eligible one that qualifies.
         const floor = writtenOrderKept(g, drawn[0]!.layout)
         const inOrder = Math.min(...eligible.filter((d) => writtenOrderKept(g, d.layout) >= floor).map((d) => area(d.layout)))
-        if (area(smallest.layout) <= WRITTEN_GAIN * inOrder) {
-          if (area(kept.layout) !== area(smallest.layout)) failures.push(`${dag.file}: a clearly smaller drawing out of written order was not kept`)
-          if (writtenOrderKept(g, kept.layout) < floor) writtenGivenUp++
-        } else if (writtenOrderKept(g, kept.layout) < floor) failures.push(`${dag.file}: kept a drawing with less written order without a clear gain`)
+        const qualifies = (l: Layout): boolean => area(l) <= WRITTEN_GAIN ** Math.max(0, floor - writtenOrderKept(g, l)) * inOrder
+        const least = Math.min(...eligible.filter((d) => qualifies(d.layout)).map((d) => area(d.layout)))
+        if (!qualifies(kept.layout)) failures.push(`${dag.file}: kept a drawing with less written order without a clear gain`)
+        if (area(kept.layout) !== least) failures.push(`${dag.file}: kept ${area(kept.layout)}, the smallest that qualifies is ${least}`)
+        if (writtenOrderKept(g, kept.layout) < floor) writtenGivenUp++
         stRows += rows(drawn[0]!.layout)
         keptRows += rows(kept.layout)
         const lp = drawn.find((d) => d.kind === 'longest-path' && !d.balanced)
