@@ -254,6 +254,8 @@ export function layoutCandidates(input: LayoutInput, options: Readonly<SmallestL
   const {halfV} = boxHalves(input.boxes, g.vertexCount, input.flow)
   const stRows = rowCount(out[0]!.layout)
   const cap = (k: number): number => (k < stRows ? Infinity : k === stRows ? SAME_ROWS_GAIN * stArea : TALLER_GAIN * stArea)
+  const sameHeight = keptBy(g, out[0]!.layout, false)
+  let inOrder = keepable[0]!.layout.width * keepable[0]!.layout.height
   searchByArea(g, {
     across: rows.across,
     along: halfV.map((h) => 2 * h),
@@ -280,9 +282,18 @@ export function layoutCandidates(input: LayoutInput, options: Readonly<SmallestL
     step: AREA_STEP,
     measure: (level, orders) => {
       const layout = draw(level, writtenOrderFacing(g, level, orders))
-      if (!kept(layout) || layout.width * layout.height > cap(rowCount(layout))) return Infinity
+      const area = layout.width * layout.height
+      if (area > cap(rowCount(layout))) return Infinity
+      if (!kept(layout)) {
+        // Out of written order (the retry's searches without it): offered to layoutSmallest when
+        // the same-height rule allows it and it pays for each vertex it gives up (WRITTEN_GAIN); the
+        // search still aims below the smallest drawing that keeps the order.
+        if (sameHeight(layout) && area <= WRITTEN_GAIN ** (floor - writtenOrderKept(g, layout)) * inOrder) out.push({layout, kind: 'area-searched', balanced: false})
+        return Infinity
+      }
       out.push({layout, kind: 'area-searched', balanced: false})
-      return layout.width * layout.height
+      inOrder = Math.min(inOrder, area)
+      return area
     },
   })
   // Last, on budgets of its own: the smallest drawing layoutSmallest would keep so far, with one
