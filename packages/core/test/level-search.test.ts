@@ -16,9 +16,9 @@
  */
 import {describe, expect, it} from 'vitest'
 import {createDigraph, type Digraph} from '../src/graph/digraph.ts'
-import {searchLevels} from '../src/layout/level-search.ts'
+import {searchLevels, type LevelSearch} from '../src/layout/level-search.ts'
 import {longestPathToSinks, longestPathUp} from '../src/layout/layering.ts'
-import {testLevelPlanarity} from '../src/level/level-planarity.ts'
+import {testLevelPlanarity, type LevelItem} from '../src/level/level-planarity.ts'
 import {checkLevelDrawing} from '../src/level/check-level-drawing.ts'
 import {prng} from './support/layout-st-generator.ts'
 import {readGraphml} from './support/graphml.ts'
@@ -78,15 +78,23 @@ interface Tally {
 function compareWithEnumeration(g: Digraph, rows: number, rand: () => number, label: string, tally: Tally): void {
   const expected = existsByEnumeration(g, rows)
   const guide = Int32Array.from({length: g.vertexCount}, () => Math.floor(rand() * rows))
-  for (const r of [searchLevels(g, rows, {tests: 1e6, work: 1e9}), searchLevels(g, rows, {tests: 1e6, work: 1e9}, guide)]) {
-    if (r.status === 'stopped') tally.failures.push(`${label}: stopped`)
-    else if ((r.status === 'found') !== expected) tally.failures.push(`${label}: ${r.status}, enumeration says ${expected}`)
-    if (r.status === 'found') {
-      const bad = checkFound(g, rows, r.level, r.orders)
-      if (bad) tally.failures.push(`${label}: ${bad}`)
-      tally.found++
-    } else if (r.status === 'none') tally.none++
-  }
+  for (const r of [searchLevels(g, rows, {tests: 1e6, work: 1e9}), searchLevels(g, rows, {tests: 1e6, work: 1e9}, guide)]) judgeAnswer(g, rows, r, expected, label, tally)
+}
+
+/**
+ * One answer of searchLevels against the enumeration's `expected`: a stop or a disagreement is a
+ * failure; a find is counted and re-checked (checkFound, then `more`, the test's own checks of it),
+ * a "none" counted.
+ */
+function judgeAnswer(g: Digraph, rows: number, r: LevelSearch, expected: boolean, label: string, tally: Tally, more?: (found: Extract<LevelSearch, {status: 'found'}>) => string[]): void {
+  if (r.status === 'stopped') tally.failures.push(`${label}: stopped`)
+  else if ((r.status === 'found') !== expected) tally.failures.push(`${label}: ${r.status}, enumeration says ${expected}`)
+  if (r.status === 'none') tally.none++
+  if (r.status !== 'found') return
+  tally.found++
+  const bad = checkFound(g, rows, r.level, r.orders)
+  if (bad) tally.failures.push(`${label}: ${bad}`)
+  for (const problem of more?.(r) ?? []) tally.failures.push(`${label}: ${problem}`)
 }
 
 /** The least sum of gaps over every left-to-right pattern of `boxes` boxes and `bends` bends (memoised). */
@@ -120,9 +128,7 @@ function boundAgainstEnumeration(
   estimate: 'least' | undefined,
   widest: (g: Digraph, level: Int32Array, across: number[], gaps: {nodeGap: number; edgeGap: number}) => number
 ): {failures: string[]; found: number; none: number} {
-  const failures: string[] = []
-  let found = 0
-  let none = 0
+  const tally: Tally = {failures: [], found: 0, none: 0}
   for (let c = 0; c < 300; c++) {
     const n = 5 + Math.floor(rand() * 5)
     const g = randomDag(rand, n, 0.25 + rand() * 0.35)
@@ -142,20 +148,12 @@ function boundAgainstEnumeration(
       const expected = widths.some((w) => w < below)
       const guide = Int32Array.from({length: n}, () => Math.floor(rand() * rows))
       const bound = {across, ...gaps, below, ...(estimate ? {estimate} : {})}
-      for (const r of [searchLevels(g, rows, {tests: 1e6, work: 1e9}, undefined, bound), searchLevels(g, rows, {tests: 1e6, work: 1e9}, guide, bound)]) {
-        const label = `case ${c} rows ${rows} gaps ${gaps.nodeGap}/${gaps.edgeGap} below ${below}`
-        if (r.status === 'stopped') failures.push(`${label}: stopped`)
-        else if ((r.status === 'found') !== expected) failures.push(`${label}: ${r.status}, enumeration says ${expected}`)
-        if (r.status === 'found') {
-          found++
-          const bad = checkFound(g, rows, r.level, r.orders)
-          if (bad) failures.push(`${label}: ${bad}`)
-          if (widest(g, r.level, across, gaps) >= below) failures.push(`${label}: widest row ${widest(g, r.level, across, gaps)}, not below ${below}`)
-        } else if (r.status === 'none') none++
-      }
+      const label = `case ${c} rows ${rows} gaps ${gaps.nodeGap}/${gaps.edgeGap} below ${below}`
+      const narrow = (r: {level: Int32Array}): string[] => (widest(g, r.level, across, gaps) >= below ? [`widest row ${widest(g, r.level, across, gaps)}, not below ${below}`] : [])
+      for (const r of [searchLevels(g, rows, {tests: 1e6, work: 1e9}, undefined, bound), searchLevels(g, rows, {tests: 1e6, work: 1e9}, guide, bound)]) judgeAnswer(g, rows, r, expected, label, tally, narrow)
     }
   }
-  return {failures, found, none}
+  return tally
 }
 
 describe('searchLevels against exhaustive enumeration', () => {
@@ -263,9 +261,7 @@ describe('searchLevels against exhaustive enumeration', () => {
     // wrong "none" here (4 of 1,656 answers). Each find's orders are read back: every written
     // vertex's out-edges in id order. 7 to 9 vertices, every vertex with two out-edges written.
     const rand = prng(20261206)
-    const failures: string[] = []
-    let found = 0
-    let none = 0
+    const tally: Tally = {failures: [], found: 0, none: 0}
     for (let c = 0; c < 300; c++) {
       const n = 7 + Math.floor(rand() * 3)
       const g = randomDag(rand, n, 0.2 + rand() * 0.2)
@@ -286,16 +282,10 @@ describe('searchLevels against exhaustive enumeration', () => {
       for (let rows = least; rows <= least + 2; rows++) {
         const expected = existsByEnumeration(g, rows, (level) => testLevelPlanarity(g, level, {forced: forcedOf(level)}).status === 'planar')
         const guide = Int32Array.from({length: n}, () => Math.floor(rand() * rows))
-        for (const r of [searchLevels(g, rows, {tests: 1e6, work: 1e9}, undefined, undefined, written), searchLevels(g, rows, {tests: 1e6, work: 1e9}, guide, undefined, written)]) {
-          const label = `case ${c} rows ${rows} written ${written}`
-          if (r.status === 'stopped') failures.push(`${label}: stopped`)
-          else if ((r.status === 'found') !== expected) failures.push(`${label}: ${r.status}, enumeration says ${expected}`)
-          if (r.status === 'none') none++
-          if (r.status !== 'found') continue
-          found++
-          const bad = checkFound(g, rows, r.level, r.orders)
-          if (bad) failures.push(`${label}: ${bad}`)
+        // Each find's orders read back: every written vertex's out-edges in id order.
+        const inOrder = (r: {level: Int32Array; orders: LevelItem[][]}): string[] => {
           const place = new Map(r.orders.flatMap((items) => items.map((item, i) => [item.kind === 'vertex' ? `v${item.vertex}` : `e${item.edge}`, i] as const)))
+          const problems: string[] = []
           for (const v of written) {
             const outs = Array.from(g.outEdges.subarray(g.outStart[v]!, g.outStart[v + 1]!)).sort((a, b) => a - b)
             const at = outs.map((e) => {
@@ -303,14 +293,17 @@ describe('searchLevels against exhaustive enumeration', () => {
               // An edge's key names its point on every level it passes; the one above v is the first.
               return item.kind === 'vertex' ? place.get(`v${item.vertex}`)! : r.orders[r.level[v]! + 1]!.findIndex((x) => x.kind === 'edge' && x.edge === e)
             })
-            if (at.some((x, k) => k > 0 && x < at[k - 1]!)) failures.push(`${label}: vertex ${v}'s out-edges not in written order`)
+            if (at.some((x, k) => k > 0 && x < at[k - 1]!)) problems.push(`vertex ${v}'s out-edges not in written order`)
           }
+          return problems
         }
+        const label = `case ${c} rows ${rows} written ${written}`
+        for (const r of [searchLevels(g, rows, {tests: 1e6, work: 1e9}, undefined, undefined, written), searchLevels(g, rows, {tests: 1e6, work: 1e9}, guide, undefined, written)]) judgeAnswer(g, rows, r, expected, label, tally, inOrder)
       }
     }
-    expect(failures).toEqual([])
-    expect(found).toBeGreaterThan(100)
-    expect(none).toBeGreaterThan(30)
+    expect(tally.failures).toEqual([])
+    expect(tally.found).toBeGreaterThan(100)
+    expect(tally.none).toBeGreaterThan(30)
   })
 
   it('with an area bound, agrees with enumeration of the assignments whose widest least row times height stays under it', () => {
@@ -325,9 +318,7 @@ describe('searchLevels against exhaustive enumeration', () => {
     // the whole assignment is ruled out with its rows' own bends (another assignment with the same
     // levels of those vertices can have more bends on that row, which can narrow it).
     const rand = prng(20261207)
-    const failures: string[] = []
-    let found = 0
-    let none = 0
+    const tally: Tally = {failures: [], found: 0, none: 0}
     for (let c = 0; c < 300; c++) {
       const n = 5 + Math.floor(rand() * 5)
       const g = randomDag(rand, n, 0.25 + rand() * 0.35)
@@ -370,22 +361,14 @@ describe('searchLevels against exhaustive enumeration', () => {
         const expected = areas.some((a) => a < below)
         const guide = Int32Array.from({length: n}, () => Math.floor(rand() * rows))
         const bound = {across, ...gaps, below: Infinity, estimate: 'least' as const, area: {along, layerGap, below}}
-        for (const r of [searchLevels(g, rows, {tests: 1e6, work: 1e9}, undefined, bound), searchLevels(g, rows, {tests: 1e6, work: 1e9}, guide, bound)]) {
-          const label = `case ${c} rows ${rows} gaps ${gaps.nodeGap}/${gaps.edgeGap}/${layerGap} below ${below}`
-          if (r.status === 'stopped') failures.push(`${label}: stopped`)
-          else if ((r.status === 'found') !== expected) failures.push(`${label}: ${r.status}, enumeration says ${expected}`)
-          if (r.status === 'none') none++
-          if (r.status !== 'found') continue
-          found++
-          const bad = checkFound(g, rows, r.level, r.orders)
-          if (bad) failures.push(`${label}: ${bad}`)
-          if (areaOf(r.level) >= below) failures.push(`${label}: area ${areaOf(r.level)}, not below ${below}`)
-        }
+        const label = `case ${c} rows ${rows} gaps ${gaps.nodeGap}/${gaps.edgeGap}/${layerGap} below ${below}`
+        const small = (r: {level: Int32Array}): string[] => (areaOf(r.level) >= below ? [`area ${areaOf(r.level)}, not below ${below}`] : [])
+        for (const r of [searchLevels(g, rows, {tests: 1e6, work: 1e9}, undefined, bound), searchLevels(g, rows, {tests: 1e6, work: 1e9}, guide, bound)]) judgeAnswer(g, rows, r, expected, label, tally, small)
       }
     }
-    expect(failures).toEqual([])
-    expect(found).toBeGreaterThan(200)
-    expect(none).toBeGreaterThan(200)
+    expect(tally.failures).toEqual([])
+    expect(tally.found).toBeGreaterThan(200)
+    expect(tally.none).toBeGreaterThan(200)
   })
 
   it('stops within its budget and spends it in place, deterministically', () => {
