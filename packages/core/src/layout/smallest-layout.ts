@@ -170,12 +170,17 @@ export function layoutSmallest(input: LayoutInput, options: Readonly<SmallestLay
   const sameHeight = keptBy(input.graph, first!.layout, false)
   const floor = writtenOrderKept(input.graph, first!.layout)
   let plain = best
-  for (const c of levelDrawings) {
-    if (!sameHeight(c.layout) || area(c.layout) >= area(plain.layout)) continue
-    const fewer = floor - writtenOrderKept(input.graph, c.layout)
-    if (area(c.layout) <= WRITTEN_GAIN ** fewer * area(best.layout)) plain = c
-  }
+  for (const c of levelDrawings) if (sameHeight(c.layout) && area(c.layout) < area(plain.layout) && paysForOrder(input.graph, floor, c.layout, area(best.layout))) plain = c
   return plain
+}
+
+/**
+ * Whether a drawing with fewer vertices in written order than `floor` (the st-layout's count) is
+ * small enough for it: at most WRITTEN_GAIN per vertex given up of `inOrder`, the smallest area that
+ * keeps the order (true for a drawing that gives none up and is no larger). O(m log m).
+ */
+function paysForOrder(g: Digraph, floor: number, layout: Layout, inOrder: number): boolean {
+  return layout.width * layout.height <= WRITTEN_GAIN ** (floor - writtenOrderKept(g, layout)) * inOrder
 }
 
 /**
@@ -289,7 +294,7 @@ export function layoutCandidates(input: LayoutInput, options: Readonly<SmallestL
         // Out of written order (the retry's searches without it): offered to layoutSmallest when
         // the same-height rule allows it and it pays for each vertex it gives up (WRITTEN_GAIN); the
         // search still aims below the smallest drawing that keeps the order.
-        if (sameHeight(layout) && area <= WRITTEN_GAIN ** (floor - writtenOrderKept(g, layout)) * inOrder) out.push({layout, kind: 'area-searched', balanced: false})
+        if (sameHeight(layout) && paysForOrder(g, floor, layout, inOrder)) out.push({layout, kind: 'area-searched', balanced: false})
         return Infinity
       }
       out.push({layout, kind: 'area-searched', balanced: false})
