@@ -6,8 +6,9 @@
  * deterministic (no clock). Ties keep the earlier candidate, the st-layout first. A level drawing with
  * as many rows as the st-layout must be clearly smaller (SAME_ROWS_GAIN).
  *
- * Last, the smallest drawing kept so far is tried once more with one spare row (balance-rows.ts:
- * evenRowsWithSpare), on budgets of its own.
+ * Then the smallest drawing kept so far is tried once more with one spare row (balance-rows.ts:
+ * evenRowsWithSpare), on budgets of its own; last, the area search runs once more on deeper budgets,
+ * below the drawing that would be kept, so it can only make that drawing smaller.
  *
  * The level candidates are tried only up to `maxEdges` edges (the level test is quadratic in the
  * level widths; past that size the st-layout alone is used, which is linear) and each test is bounded
@@ -108,6 +109,23 @@ const AREA_PER_SEARCH = 16
 const AREA_EXTRA_ROWS = 2
 const AREA_STEP = 0.5
 /**
+ * The deep area search (the 'deep-searched' candidate): the area search once more, last, aiming below
+ * the drawing layoutSmallest would keep, on budgets of its own per diagram (level tests, levels
+ * tried, the retry's tests and levels, pairs set up for each); deterministic counts. Small diagrams run
+ * out of levels tried first, large ones out of pairs, so the pairs bound its cost by the graph's size.
+ * On the 813 North DAGs with the bench's boxes (2026-12-03, scratch A/B against the code before, CPU
+ * of layoutSmallest in one process): 275 drawn smaller, none larger, total area 0.972, CPU 2.6x;
+ * g.21.34, g.23.99 and g.31.0 go below the reference library's area. 10,000 and 15,000 levels: 252
+ * smaller at 2.3x; 40,000 and 60,000: 294 at 3.1x; 100,000 and 150,000 with 50,000,000 pairs: 319 at
+ * 5.2x, and a 100-vertex generated graph 2 s slower for nothing.
+ */
+const DEEP_TESTS = 2_000
+const DEEP_STEPS = 20_000
+const DEEP_PER_SEARCH = 400
+const DEEP_RETRY_TESTS = 1_000
+const DEEP_RETRY_STEPS = 30_000
+const DEEP_WORK = 500_000
+/**
  * The area-searched candidate's retry with other written-order sets (area-search.ts): its own
  * budget per diagram (level tests, pairs, levels tried) and the most sets tried at one row count;
  * deterministic counts. Its own so that the searches before it are the same as without it. On the
@@ -148,29 +166,45 @@ export interface SmallestLayoutOptions {
   keepWrittenOrder?: boolean | undefined
 }
 
+/** Budgets of one area search per diagram (searchByArea's budget and retry, and its most tests per search). */
+interface AreaBudget {
+  tests: number
+  steps: number
+  perSearch: number
+  retryTests: number
+  retrySteps: number
+  work: number
+}
+
 export interface SmallestLayout {
   layout: Layout
   /** Which drawing was kept. */
-  kind: 'st' | LevelCandidateKind | 'area-searched' | 'spare-row'
+  kind: 'st' | LevelCandidateKind | 'area-searched' | 'spare-row' | 'deep-searched'
   /** For a level drawing: whether its rows were evened out. */
   balanced: boolean
 }
 
 export function layoutSmallest(input: LayoutInput, options: Readonly<SmallestLayoutOptions> = {}): SmallestLayout {
-  const [first, ...levelDrawings] = layoutCandidates(input, options)
+  return choose(input.graph, layoutCandidates(input, options), options.keepWrittenOrder ?? true)
+}
+
+/**
+ * The drawing layoutSmallest keeps among these candidates (the st-layout first): the smallest the
+ * written-order and same-height rules allow, unless (with `keep`) a drawing the same-height rule
+ * allows with k vertices fewer in written order than the st-layout is at most WRITTEN_GAIN^k of its
+ * area; the written order yields only to a clear gain, paid per vertex.
+ */
+function choose(g: Digraph, candidates: readonly SmallestLayout[], keep: boolean): SmallestLayout {
+  const [first, ...levelDrawings] = candidates
   const area = (l: Layout): number => l.width * l.height
-  const keep = options.keepWrittenOrder ?? true
-  const kept = keptBy(input.graph, first!.layout, keep)
+  const kept = keptBy(g, first!.layout, keep)
   let best = first!
   for (const c of levelDrawings) if (kept(c.layout) && area(c.layout) < area(best.layout)) best = c
   if (!keep) return best
-  // The written order yields only to a clear gain, paid per vertex: a drawing the same-height rule
-  // allows with k vertices fewer in written order than the st-layout, when it is at most
-  // WRITTEN_GAIN^k of the area kept above.
-  const sameHeight = keptBy(input.graph, first!.layout, false)
-  const floor = writtenOrderKept(input.graph, first!.layout)
+  const sameHeight = keptBy(g, first!.layout, false)
+  const floor = writtenOrderKept(g, first!.layout)
   let plain = best
-  for (const c of levelDrawings) if (sameHeight(c.layout) && area(c.layout) < area(plain.layout) && paysForOrder(input.graph, floor, c.layout, area(best.layout))) plain = c
+  for (const c of levelDrawings) if (sameHeight(c.layout) && area(c.layout) < area(plain.layout) && paysForOrder(g, floor, c.layout, area(best.layout))) plain = c
   return plain
 }
 
@@ -262,46 +296,52 @@ export function layoutCandidates(input: LayoutInput, options: Readonly<SmallestL
   const cap = (k: number): number => (k < stRows ? Infinity : k === stRows ? SAME_ROWS_GAIN * stArea : TALLER_GAIN * stArea)
   const sameHeight = keptBy(g, out[0]!.layout, false)
   let inOrder = keepable[0]!.layout.width * keepable[0]!.layout.height
-  searchByArea(g, {
-    across: rows.across,
-    along: halfV.map((h) => 2 * h),
-    nodeGap: spacing.node,
-    edgeGap: spacing.edge,
-    layerGap: spacing.layer,
-    area: keepable[0]!.layout.width * keepable[0]!.layout.height,
-    from: fewest,
-    to: fewest + AREA_EXTRA_ROWS,
-    cap,
-    guides: keepable.map((c) => rowsOf(g, c.layout)),
-    written: writtenOrderVertices(g, out[0]!.layout),
-    budget: {tests: AREA_TESTS, work: AREA_WORK, steps: AREA_STEPS},
-    keeps: (level, orders) => {
-      const {wrong} = writtenOrderCounts(g, level, writtenOrderFacing(g, level, orders))
-      const out = new Set(wrong)
-      const kept: number[] = []
-      for (let v = 0; v < g.vertexCount; v++) if (g.outStart[v + 1]! - g.outStart[v]! >= 2 && !out.has(v)) kept.push(v)
-      return kept
-    },
-    retry: {tests: AREA_RETRY_TESTS, work: AREA_WORK, steps: AREA_RETRY_STEPS},
-    retrySets: AREA_RETRY_SETS,
-    perSearch: AREA_PER_SEARCH,
-    step: AREA_STEP,
-    measure: (level, orders) => {
-      const layout = draw(level, writtenOrderFacing(g, level, orders))
-      const area = layout.width * layout.height
-      if (area > cap(rowCount(layout))) return Infinity
-      if (!kept(layout)) {
-        // Out of written order (the retry's searches without it): offered to layoutSmallest when
-        // the same-height rule allows it and it pays for each vertex it gives up (WRITTEN_GAIN); the
-        // search still aims below the smallest drawing that keeps the order.
-        if (sameHeight(layout) && paysForOrder(g, floor, layout, inOrder)) out.push({layout, kind: 'area-searched', balanced: false})
-        return Infinity
-      }
-      out.push({layout, kind: 'area-searched', balanced: false})
-      inOrder = Math.min(inOrder, area)
-      return area
-    },
-  })
+  /**
+   * One area search (area-search.ts) below `area`, on these budgets; a find is offered to
+   * layoutSmallest, as `kind`, only when drawn below `below` too.
+   */
+  const searchArea = (kind: 'area-searched' | 'deep-searched', area: number, below: number, guides: Int32Array[], budget: AreaBudget): void =>
+    searchByArea(g, {
+      across: rows.across,
+      along: halfV.map((h) => 2 * h),
+      nodeGap: spacing.node,
+      edgeGap: spacing.edge,
+      layerGap: spacing.layer,
+      area,
+      from: fewest,
+      to: fewest + AREA_EXTRA_ROWS,
+      cap,
+      guides,
+      written: writtenOrderVertices(g, out[0]!.layout),
+      budget: {tests: budget.tests, work: budget.work, steps: budget.steps},
+      keeps: (level, orders) => {
+        const {wrong} = writtenOrderCounts(g, level, writtenOrderFacing(g, level, orders))
+        const out = new Set(wrong)
+        const kept: number[] = []
+        for (let v = 0; v < g.vertexCount; v++) if (g.outStart[v + 1]! - g.outStart[v]! >= 2 && !out.has(v)) kept.push(v)
+        return kept
+      },
+      retry: {tests: budget.retryTests, work: budget.work, steps: budget.retrySteps},
+      retrySets: AREA_RETRY_SETS,
+      perSearch: budget.perSearch,
+      step: AREA_STEP,
+      measure: (level, orders) => {
+        const layout = draw(level, writtenOrderFacing(g, level, orders))
+        const area = layout.width * layout.height
+        if (area > cap(rowCount(layout)) || area >= below) return Infinity
+        if (!kept(layout)) {
+          // Out of written order (the retry's searches without it): offered to layoutSmallest when
+          // the same-height rule allows it and it pays for each vertex it gives up (WRITTEN_GAIN); the
+          // search still aims below the smallest drawing that keeps the order.
+          if (sameHeight(layout) && paysForOrder(g, floor, layout, inOrder)) out.push({layout, kind, balanced: false})
+          return Infinity
+        }
+        out.push({layout, kind, balanced: false})
+        inOrder = Math.min(inOrder, area)
+        return area
+      },
+    })
+  searchArea('area-searched', inOrder, Infinity, keepable.map((c) => rowsOf(g, c.layout)), {tests: AREA_TESTS, steps: AREA_STEPS, perSearch: AREA_PER_SEARCH, retryTests: AREA_RETRY_TESTS, retrySteps: AREA_RETRY_STEPS, work: AREA_WORK})
   // Last, on budgets of its own: the smallest drawing layoutSmallest would keep so far, with one
   // spare row (balance-rows.ts: evenRowsWithSpare), so a fan of sinks or sources on its widest row
   // can spread over a row of its own; drawn and repaired like the candidates above.
@@ -316,6 +356,14 @@ export function layoutCandidates(input: LayoutInput, options: Readonly<SmallestL
     if (rowCount(layout) > rowCount(out[0]!.layout) && layout.width * layout.height > TALLER_GAIN * stArea) continue
     out.push({layout, kind: 'spare-row', balanced: true})
   }
+  // Last, on deeper budgets of its own: the area search once more, below the drawing layoutSmallest
+  // would keep now, a find offered only when drawn below it, so this can make the kept drawing
+  // smaller, never larger (larger budgets in the search above change what it steers, both ways:
+  // bench/README.md). Guides: the rows of that drawing first, then those of the keepable ones.
+  const now = choose(g, out, true).layout
+  for (const c of out) if (kept(c.layout)) inOrder = Math.min(inOrder, c.layout.width * c.layout.height)
+  const guides = [now, ...out.filter((c) => kept(c.layout)).map((c) => c.layout).sort((a, b) => a.width * a.height - b.width * b.height)].map((l) => rowsOf(g, l))
+  searchArea('deep-searched', now.width * now.height, now.width * now.height, guides, {tests: DEEP_TESTS, steps: DEEP_STEPS, perSearch: DEEP_PER_SEARCH, retryTests: DEEP_RETRY_TESTS, retrySteps: DEEP_RETRY_STEPS, work: DEEP_WORK})
   return out
 }
 
