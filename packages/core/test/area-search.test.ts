@@ -20,6 +20,10 @@
  * budgets, below the drawing that would be kept) draws each under dagre's area; no drawing before it
  * that the same-height rule allows is under it (bench/layout.ts had them at 1.178, 1.069 and 1.043 of
  * dagre's area at b9fda0b). Fails with the deep search's budget at 0.
+ *
+ * g.49.17 (same boxes): the last step, the kept drawing's rows evened out by area (balance-rows.ts
+ * with the rows' heights), draws it under dagre's area (1.016 of it before); no drawing before it is
+ * under it.
  */
 import dagre from '@dagrejs/dagre'
 import {describe, expect, it} from 'vitest'
@@ -145,5 +149,19 @@ describe('area-searched candidate', () => {
       expect(area(kept.layout), name).toBeLessThan(reference)
       expect(checkDrawing(g, kept.layout, {boxes: input.boxes}), name).toEqual({ok: true})
     }
+  })
+
+  it('g.49.17: the kept drawing\'s rows evened out by area draw under dagre\'s area', () => {
+    const input = benchInput('g.49.17')
+    const g = input.graph
+    const reference = dagreArea(g, input.boxes)
+    const drawn = layoutCandidates(input)
+    const first = drawn.findIndex((d) => d.kind === 'area-evened')
+    expect(first).toBeGreaterThan(0)
+    expect(Math.min(...drawn.slice(0, first).map((d) => area(d.layout)))).toBeGreaterThan(reference)
+    const kept = layoutSmallest(input)
+    expect(kept.kind).toBe('area-evened')
+    expect(area(kept.layout)).toBeLessThan(reference)
+    expect(checkDrawing(g, kept.layout, {boxes: input.boxes})).toEqual({ok: true})
   })
 })

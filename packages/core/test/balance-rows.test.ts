@@ -8,6 +8,11 @@
  * move, brute force). The spare level: a vertex whose out-edges fan out to many sinks on the top row
  * (common practice in layered drawing: a wide fan is split over two rows) can only narrow that row
  * when a level above it is offered.
+ *
+ * With the rows' heights (evenRows's `heights`): the same checks with the area as the measure,
+ * recomputed here from its definition (the widest row times the rows that hold boxes, each as tall as
+ * its tallest box, plus a layer gap between them), and a tall box moved onto a row that already has
+ * one when that lowers the area.
  */
 import {describe, expect, it} from 'vitest'
 import {createDigraph, type Digraph} from '../src/graph/digraph.ts'
@@ -96,6 +101,76 @@ describe('evenRows', () => {
     expect(Math.max(...top)).toBe(4)
     const before = Math.max(...widths(g, level, across, 4))
     expect(Math.max(...widths(g, top, across, 5))).toBeLessThan(before)
+  })
+})
+
+const LAYER_GAP = 40
+
+/** Widest row times the height of the rows holding boxes (tallest box each, a layer gap between). */
+function areaOf(g: Digraph, level: ArrayLike<number>, across: ArrayLike<number>, along: ArrayLike<number>, rows: number): number {
+  const tallest = new Array<number>(rows).fill(-1)
+  for (let v = 0; v < g.vertexCount; v++) tallest[level[v]!] = Math.max(tallest[level[v]!]!, along[v]!)
+  const used = tallest.filter((t) => t >= 0)
+  return Math.max(...widths(g, level, across, rows)) * (used.reduce((a, b) => a + b, 0) + (used.length - 1) * LAYER_GAP)
+}
+
+describe('evenRows by area (with the rows\' heights)', () => {
+  const randomHeights = (rand: () => number, n: number): number[] => Array.from({length: n}, () => (rand() < 0.3 ? 51 : 34))
+
+  it('keeps edges rising and levels in range, and never grows the area (random DAGs)', () => {
+    const rand = prng(20261204)
+    let moved = 0
+    for (let t = 0; t < 300; t++) {
+      const {n, g, across, level} = randomCase(rand, 12, 0.15)
+      const along = randomHeights(rand, n)
+      const levels = Math.max(...level) + 1
+      const out = evenRows(g, level, across, NODE_GAP, EDGE_GAP, 0, {along, layerGap: LAYER_GAP})
+      if (!out) continue
+      moved++
+      for (let v = 0; v < n; v++) expect(out[v]).toBeGreaterThanOrEqual(0)
+      for (let v = 0; v < n; v++) expect(out[v]).toBeLessThan(levels)
+      for (let e = 0; e < g.edgeCount; e++) expect(out[g.tail[e]!]!).toBeLessThan(out[g.head[e]!]!)
+      expect(areaOf(g, out, across, along, levels)).toBeLessThanOrEqual(areaOf(g, level, across, along, levels) + 1e-6)
+    }
+    expect(moved).toBeGreaterThan(50)
+  })
+
+  it('answers "no move" only when no single move lowers the area (brute force)', () => {
+    const rand = prng(11)
+    let settled = 0
+    for (let t = 0; t < 200; t++) {
+      const {n, g, across, level} = randomCase(rand, 9, 0.2)
+      const along = randomHeights(rand, n)
+      const levels = Math.max(...level) + 1
+      if (evenRows(g, level, across, NODE_GAP, EDGE_GAP, 0, {along, layerGap: LAYER_GAP})) continue
+      settled++
+      const area = areaOf(g, level, across, along, levels)
+      for (let v = 0; v < n; v++) {
+        for (let l = 0; l < levels; l++) {
+          const next = level.slice()
+          next[v] = l
+          let rises = true
+          for (let e = 0; e < g.edgeCount; e++) if (next[g.tail[e]!]! >= next[g.head[e]!]!) rises = false
+          if (rises) expect(areaOf(g, next, across, along, levels)).toBeGreaterThanOrEqual(area - 1e-6)
+        }
+      }
+    }
+    expect(settled).toBeGreaterThan(10)
+  })
+
+  it('puts a tall box on the row of another tall box, where the widths alone see no gain', () => {
+    // The path 0 -> 1 -> 3 -> 4 with 3 tall, and 2 tall on its own: longest path puts 2 beside 0 on
+    // row 0. Moved beside 3 on row 2, the widest row is as wide as before (two boxes) and row 0 is
+    // short; by widths alone (with the sum of squares as the tie-break) nothing changes.
+    const g = createDigraph(5, [[0, 1], [1, 3], [3, 4]])
+    const across = [60, 60, 60, 60, 60]
+    const along = [34, 34, 51, 51, 34]
+    const level = longestPathUp(g)
+    expect(Array.from(level)).toEqual([0, 1, 0, 2, 3])
+    expect(evenRows(g, level, across, NODE_GAP, EDGE_GAP)).toBeUndefined()
+    const out = evenRows(g, level, across, NODE_GAP, EDGE_GAP, 0, {along, layerGap: LAYER_GAP})
+    expect(out && Array.from(out)).toEqual([0, 1, 2, 2, 3])
+    expect(areaOf(g, out!, across, along, 4)).toBeLessThan(areaOf(g, level, across, along, 4))
   })
 })
 

@@ -12,7 +12,12 @@
  * here as a local search on a given layering with the row width as its measure. The result still
  * needs the level-planarity test: moving a vertex can make the levels non-level-planar.
  *
- * Time: O(passes · Σ_v (slack(v) + 1) · (L + deg v)) for L levels, at most MAX_PASSES passes.
+ * With `heights` the measure is the area instead: the widest row times the height of the rows that
+ * hold boxes (each row's tallest box plus the gaps between rows; ours), so a move that puts a tall box
+ * on a row that already has one, or empties a row, counts; ties as before.
+ *
+ * Time: O(passes · Σ_v (slack(v) + 1) · (L + deg v)) for L levels, at most MAX_PASSES passes; with
+ * `heights`, times the number of distinct box heights, H: O(passes · Σ_v (slack(v) + 1) · (L·H + deg v)).
  */
 import type {Digraph} from '../graph/digraph.ts'
 
@@ -26,7 +31,7 @@ const MAX_PASSES = 4
  * more than the input's height offers a spare level on top (shift the input up by one for a spare
  * level below), so a crowded row can give vertices to a row of its own.
  */
-export function evenRows(g: Digraph, level: Int32Array, across: ArrayLike<number>, nodeGap: number, edgeGap: number, levels = 0): Int32Array | undefined {
+export function evenRows(g: Digraph, level: Int32Array, across: ArrayLike<number>, nodeGap: number, edgeGap: number, levels = 0, heights?: RowHeights): Int32Array | undefined {
   const n = g.vertexCount
   let height = levels
   for (let v = 0; v < n; v++) height = Math.max(height, level[v]! + 1)
@@ -34,8 +39,14 @@ export function evenRows(g: Digraph, level: Int32Array, across: ArrayLike<number
   const lv = level.slice()
   const row = new Float64Array(height)
   row.set(rowWidths(g, lv, across, nodeGap, edgeGap))
+  // With heights: per row, how many boxes of each distinct height it holds (tallest first).
+  const distinct = heights ? [...new Set(Array.from({length: n}, (_, v) => heights.along[v]!))].sort((a, b) => b - a) : []
+  const kind = heights ? Int32Array.from({length: n}, (_, v) => distinct.indexOf(heights.along[v]!)) : new Int32Array(0)
+  const counts = new Int32Array(heights ? height * distinct.length : 0)
+  if (heights) for (let v = 0; v < n; v++) counts[lv[v]! * distinct.length + kind[v]!]!++
   const addVertex = (v: number, l: number, sign: number): void => {
     row[l]! += sign * (across[v]! + nodeGap)
+    if (heights) counts[l * distinct.length + kind[v]!]! += sign
     for (let p = g.inStart[v]!; p < g.inStart[v + 1]!; p++) {
       const u = g.tail[g.inEdges[p]!]!
       for (let r = lv[u]! + 1; r < l; r++) row[r]! += sign * edgeGap
@@ -52,7 +63,16 @@ export function evenRows(g: Digraph, level: Int32Array, across: ArrayLike<number
       max = Math.max(max, row[l]!)
       squares += row[l]! * row[l]!
     }
-    return [max, squares]
+    if (!heights) return [max, squares]
+    let tall = 0
+    let used = 0
+    for (let l = 0; l < height; l++) {
+      const k = distinct.findIndex((_, i) => counts[l * distinct.length + i]! > 0)
+      if (k < 0) continue
+      tall += distinct[k]!
+      used++
+    }
+    return [max * (tall + Math.max(0, used - 1) * heights.layerGap), squares]
   }
   const better = (a: [number, number], b: [number, number]): boolean => a[0] < b[0] - 1e-9 || (a[0] <= b[0] + 1e-9 && a[1] < b[1] - 1e-6)
   let changed = false
@@ -89,6 +109,12 @@ export function evenRows(g: Digraph, level: Int32Array, across: ArrayLike<number
     if (!moved) break
   }
   return changed ? lv : undefined
+}
+
+/** Each box's extent along the flow and the gap between rows, for evenRows's area measure. */
+export interface RowHeights {
+  along: ArrayLike<number>
+  layerGap: number
 }
 
 /**

@@ -670,7 +670,7 @@ function relaxAugmentation(
  * numbering), then every moved vertex an edge no longer rises over set back too, until every edge
  * rises (it does once all are back); undefined when none of the ends was moved. O((n + m) · rounds).
  */
-function undoMoves(g: Digraph, from: Int32Array, moved: Int32Array, edges: readonly number[]): Int32Array | undefined {
+export function undoMoves(g: Digraph, from: Int32Array, moved: Int32Array, edges: readonly number[]): Int32Array | undefined {
   const out = moved.slice()
   let any = false
   for (const e of edges) {
