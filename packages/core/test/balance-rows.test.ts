@@ -45,6 +45,26 @@ function randomCase(rand: () => number, sizes: number, density: number): {n: num
   return {n, g, across, level: longestPathUp(g)}
 }
 
+/** Every level in 0..levels − 1 and every edge rising. */
+function expectValidLevels(g: Digraph, out: Int32Array, levels: number): void {
+  for (let v = 0; v < g.vertexCount; v++) expect(out[v]).toBeGreaterThanOrEqual(0)
+  for (let v = 0; v < g.vertexCount; v++) expect(out[v]).toBeLessThan(levels)
+  for (let e = 0; e < g.edgeCount; e++) expect(out[g.tail[e]!]!).toBeLessThan(out[g.head[e]!]!)
+}
+
+/** Every assignment one vertex away from `level` (within 0..levels − 1) whose edges all rise. */
+function* singleMoves(g: Digraph, level: Int32Array, levels: number): Generator<Int32Array> {
+  for (let v = 0; v < g.vertexCount; v++) {
+    for (let l = 0; l < levels; l++) {
+      const next = level.slice()
+      next[v] = l
+      let rises = true
+      for (let e = 0; e < g.edgeCount; e++) if (next[g.tail[e]!]! >= next[g.head[e]!]!) rises = false
+      if (rises) yield next
+    }
+  }
+}
+
 describe('evenRows', () => {
   it('keeps edges rising and levels in range, and never widens the widest row (random DAGs, with and without a spare level)', () => {
     const rand = prng(20261203)
@@ -57,9 +77,7 @@ describe('evenRows', () => {
         const out = evenRows(g, level, across, NODE_GAP, EDGE_GAP, levels)
         if (!out) continue
         moved++
-        for (let v = 0; v < n; v++) expect(out[v]).toBeGreaterThanOrEqual(0)
-        for (let v = 0; v < n; v++) expect(out[v]).toBeLessThan(levels)
-        for (let e = 0; e < g.edgeCount; e++) expect(out[g.tail[e]!]!).toBeLessThan(out[g.head[e]!]!)
+        expectValidLevels(g, out, levels)
         expect(Math.max(...widths(g, out, across, levels))).toBeLessThanOrEqual(Math.max(...widths(g, level, across, levels)) + 1e-9)
       }
     }
@@ -75,15 +93,7 @@ describe('evenRows', () => {
       if (evenRows(g, level, across, NODE_GAP, EDGE_GAP, levels)) continue
       settled++
       const widest = Math.max(...widths(g, level, across, levels))
-      for (let v = 0; v < n; v++) {
-        for (let l = 0; l < levels; l++) {
-          const next = level.slice()
-          next[v] = l
-          let rises = true
-          for (let e = 0; e < g.edgeCount; e++) if (next[g.tail[e]!]! >= next[g.head[e]!]!) rises = false
-          if (rises) expect(Math.max(...widths(g, next, across, levels))).toBeGreaterThanOrEqual(widest - 1e-9)
-        }
-      }
+      for (const next of singleMoves(g, level, levels)) expect(Math.max(...widths(g, next, across, levels))).toBeGreaterThanOrEqual(widest - 1e-9)
     }
     expect(settled).toBeGreaterThan(10)
   })
@@ -127,9 +137,7 @@ describe('evenRows by area (with the rows\' heights)', () => {
       const out = evenRows(g, level, across, NODE_GAP, EDGE_GAP, 0, {along, layerGap: LAYER_GAP})
       if (!out) continue
       moved++
-      for (let v = 0; v < n; v++) expect(out[v]).toBeGreaterThanOrEqual(0)
-      for (let v = 0; v < n; v++) expect(out[v]).toBeLessThan(levels)
-      for (let e = 0; e < g.edgeCount; e++) expect(out[g.tail[e]!]!).toBeLessThan(out[g.head[e]!]!)
+      expectValidLevels(g, out, levels)
       expect(areaOf(g, out, across, along, levels)).toBeLessThanOrEqual(areaOf(g, level, across, along, levels) + 1e-6)
     }
     expect(moved).toBeGreaterThan(50)
@@ -145,15 +153,7 @@ describe('evenRows by area (with the rows\' heights)', () => {
       if (evenRows(g, level, across, NODE_GAP, EDGE_GAP, 0, {along, layerGap: LAYER_GAP})) continue
       settled++
       const area = areaOf(g, level, across, along, levels)
-      for (let v = 0; v < n; v++) {
-        for (let l = 0; l < levels; l++) {
-          const next = level.slice()
-          next[v] = l
-          let rises = true
-          for (let e = 0; e < g.edgeCount; e++) if (next[g.tail[e]!]! >= next[g.head[e]!]!) rises = false
-          if (rises) expect(areaOf(g, next, across, along, levels)).toBeGreaterThanOrEqual(area - 1e-6)
-        }
-      }
+      for (const next of singleMoves(g, level, levels)) expect(areaOf(g, next, across, along, levels)).toBeGreaterThanOrEqual(area - 1e-6)
     }
     expect(settled).toBeGreaterThan(10)
   })
