@@ -20,6 +20,11 @@
  * `--steps` levels tried (default 1,000,000), deterministic counts; a search that runs out leaves its
  * bracket open ("unknown (budget)").
  *
+ * `--heights`: each row count asks the deciding question once, with searchLevels's area bound as well
+ * (the widest row by the least width times the rows' real heights, each row as tall as its tallest
+ * box, plus the layer gaps; RowWidthBound.area, a lower bound on the drawn area): a "none" proves
+ * that no k-row drawing is below dagre's area, however its tall boxes share rows; no halving after.
+ *
  * Verdict per graph: "out of reach (proved)" when every k is proved at least dagre's area; "room: a
  * k-row assignment with rows at most W exists" when some search found an assignment whose widest
  * row times leastHeight(k) is below dagre's area (its own drawing, by layoutLevels with the orders the
@@ -47,7 +52,8 @@ const NORTH = '/work/shared/data/north'
 const args = process.argv.slice(2)
 const TESTS = numberOption('--tests', 20_000)
 const STEPS = numberOption('--steps', 1_000_000)
-const names = args.filter((a, i) => !a.startsWith('--') && !(i > 0 && args[i - 1]!.startsWith('--')))
+const HEIGHTS = args.includes('--heights')
+const names = args.filter((a, i) => !a.startsWith('--') && !(i > 0 && ['--tests', '--steps'].includes(args[i - 1]!)))
 /** Halving stops when the bracket on the widest row is this narrow (px) or after this many searches. */
 const TOLERANCE = 1
 const MAX_PROBES = 10
@@ -149,7 +155,8 @@ for (const x of graphs) {
     let steps = 0
     const search = (below: number): LevelSearch => {
       const budget = {tests: TESTS, work: 1e12, steps: STEPS}
-      const bound = Number.isFinite(below) ? {across, nodeGap, edgeGap, below, estimate: 'least' as const} : undefined
+      const area = HEIGHTS ? {along, layerGap, below: dagreArea} : undefined
+      const bound = Number.isFinite(below) ? {across, nodeGap, edgeGap, below, estimate: 'least' as const, area} : undefined
       const r = searchLevels(g, k, budget, hiLevel, bound)
       tests += TESTS - budget.tests
       steps += STEPS - budget.steps
@@ -172,6 +179,13 @@ for (const x of graphs) {
           answers.push(`stopped < ${fmt(below, 1)}`)
           break
         }
+        if (r.status === 'none' && HEIGHTS && Number.isFinite(below)) {
+          // No assignment under dagre's area with the rows' real heights: every k-row drawing is at
+          // least dagre's area (said as lo · height); the widest row itself is not bracketed.
+          answers.push(`none under dagre's area with the rows' heights (widest < ${fmt(below, 1)})`)
+          lo = below
+          break
+        }
         if (r.status === 'none') {
           answers.push(Number.isFinite(below) ? `none < ${fmt(below, 1)}` : 'not level planar')
           lo = below
@@ -180,6 +194,7 @@ for (const x of graphs) {
           hiLevel = r.level
           hiOrders = r
           answers.push(`found ${fmt(hi, 1)}`)
+          if (HEIGHTS && Number.isFinite(below)) break
         }
       }
     }
