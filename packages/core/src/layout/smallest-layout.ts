@@ -360,9 +360,11 @@ export function layoutCandidates(input: LayoutInput, options: Readonly<SmallestL
   // can spread over a row of its own; drawn and repaired like the candidates above.
   let smallest = out[0]!.layout
   for (const c of out.slice(1)) if (kept(c.layout) && c.layout.width * c.layout.height < smallest.width * smallest.height) smallest = c.layout
+  // The st-layout's places (H's visibility abscissae) as the level test's preference.
+  const stPlaces = {rank: Float64Array.from(vertexKey.subarray(0, g.vertexCount)), edgeRank: Float64Array.from(edgeKey.subarray(0, g.edgeCount)), majority: true}
   const spare = {repair: {tests: SPARE_TESTS, work: SPARE_WORK}, forcing: {tests: SPARE_FORCED_TESTS, work: SPARE_WORK, failed: new Map()} as ForcedBudget, narrow: {tests: NARROW_TESTS, work: NARROW_WORK}}
   for (const level of evenRowsWithSpare(g, rowsOf(g, smallest), rows.across, rows.nodeGap, rows.edgeGap)) {
-    const tested = paidLevelTest(g, level, {rank: Float64Array.from(vertexKey.subarray(0, g.vertexCount)), edgeRank: Float64Array.from(edgeKey.subarray(0, g.edgeCount)), majority: true}, spare.repair)
+    const tested = paidLevelTest(g, level, stPlaces, spare.repair)
     if (tested?.status !== 'planar') continue
     const {layout} = finish(level, tested.orders, spare.repair, spare.forcing, spare.narrow)
     // Taller than the st-layout: the area-searched candidate's bar (TALLER_GAIN) holds here too.
@@ -396,7 +398,7 @@ export function layoutCandidates(input: LayoutInput, options: Readonly<SmallestL
       let raw = evenRows(g, from, rows.across, rows.nodeGap, rows.edgeGap, 0, heights)
       while (raw) {
         const level = dropEmptyLevels(raw)
-        const tested = paidLevelTest(g, level, {rank: Float64Array.from(vertexKey.subarray(0, g.vertexCount)), edgeRank: Float64Array.from(edgeKey.subarray(0, g.edgeCount)), majority: true}, tests)
+        const tested = paidLevelTest(g, level, stPlaces, tests)
         if (tested?.status === 'planar') {
           const {layout} = finish(level, tested.orders, repairs.repair, repairs.forcing, repairs.narrow)
           if (layout.width * layout.height < before.width * before.height) out.push({layout, kind: 'area-evened', balanced: true})
