@@ -122,8 +122,8 @@ const AREA_STEP = 0.5
 const EVEN_TESTS = 25
 const EVEN_PASSES = 3
 /**
- * The deep area search (the 'deep-searched' candidate): the area search once more, last, aiming below
- * the drawing layoutSmallest would keep, on budgets of its own per diagram (level tests, levels
+ * The deep area search (the 'deep-searched' candidate): the area search once more, after the spare
+ * row, aiming below the drawing layoutSmallest would keep, on budgets of its own per diagram (level tests, levels
  * tried, the retry's tests and levels, pairs set up for each); deterministic counts. Small diagrams run
  * out of levels tried first, large ones out of pairs, so the pairs bound its cost by the graph's size.
  * On the 813 North DAGs with the bench's boxes (2026-12-03, scratch A/B against the code before, CPU
@@ -309,6 +309,7 @@ export function layoutCandidates(input: LayoutInput, options: Readonly<SmallestL
   const cap = (k: number): number => (k < stRows ? Infinity : k === stRows ? SAME_ROWS_GAIN * stArea : TALLER_GAIN * stArea)
   const sameHeight = keptBy(g, out[0]!.layout, false)
   let inOrder = keepable[0]!.layout.width * keepable[0]!.layout.height
+  const along = halfV.map((h) => 2 * h)
   /**
    * One area search (area-search.ts) below `area`, on these budgets; a find is offered to
    * layoutSmallest, as `kind`, only when drawn below `below` too.
@@ -316,7 +317,7 @@ export function layoutCandidates(input: LayoutInput, options: Readonly<SmallestL
   const searchArea = (kind: 'area-searched' | 'deep-searched', area: number, below: number, guides: Int32Array[], budget: AreaBudget): void =>
     searchByArea(g, {
       across: rows.across,
-      along: halfV.map((h) => 2 * h),
+      along,
       nodeGap: spacing.node,
       edgeGap: spacing.edge,
       layerGap: spacing.layer,
@@ -355,7 +356,7 @@ export function layoutCandidates(input: LayoutInput, options: Readonly<SmallestL
       },
     })
   searchArea('area-searched', inOrder, Infinity, keepable.map((c) => rowsOf(g, c.layout)), {tests: AREA_TESTS, steps: AREA_STEPS, perSearch: AREA_PER_SEARCH, retryTests: AREA_RETRY_TESTS, retrySteps: AREA_RETRY_STEPS, work: AREA_WORK})
-  // Last, on budgets of its own: the smallest drawing layoutSmallest would keep so far, with one
+  // Then, on budgets of its own: the smallest drawing layoutSmallest would keep so far, with one
   // spare row (balance-rows.ts: evenRowsWithSpare), so a fan of sinks or sources on its widest row
   // can spread over a row of its own; drawn and repaired like the candidates above.
   let smallest = out[0]!.layout
@@ -386,7 +387,6 @@ export function layoutCandidates(input: LayoutInput, options: Readonly<SmallestL
   // smaller than that drawing (so the kept drawing can only shrink), again from each smaller one,
   // EVEN_PASSES times at most. Each pass on budgets of its own, the spare row's sizes for the repair.
   // After the deep search, whose bound and guides it would change both ways (bench/README.md).
-  const along = halfV.map((h) => 2 * h)
   for (let pass = 0; pass < EVEN_PASSES; pass++) {
     const before = choose(g, out, true).layout
     const from = rowsOf(g, before)
