@@ -13,13 +13,14 @@
  * needs the level-planarity test: moving a vertex can make the levels non-level-planar.
  *
  * With `heights` the measure is the area instead: the widest row times the height of the rows that
- * hold boxes (each row's tallest box plus the gaps between rows; ours), so a move that puts a tall box
+ * hold boxes (each row's tallest box plus the gaps between rows, row-bound.ts's rowsHeight; ours), so a move that puts a tall box
  * on a row that already has one, or empties a row, counts; ties as before.
  *
  * Time: O(passes · Σ_v (slack(v) + 1) · (L + deg v)) for L levels, at most MAX_PASSES passes; with
  * `heights`, times the number of distinct box heights, H: O(passes · Σ_v (slack(v) + 1) · (L·H + deg v)).
  */
 import type {Digraph} from '../graph/digraph.ts'
+import {rowsHeight} from './row-bound.ts'
 
 const MAX_PASSES = 4
 
@@ -44,6 +45,8 @@ export function evenRows(g: Digraph, level: Int32Array, across: ArrayLike<number
   const kind = heights ? Int32Array.from({length: n}, (_, v) => distinct.indexOf(heights.along[v]!)) : new Int32Array(0)
   const counts = new Int32Array(heights ? height * distinct.length : 0)
   if (heights) for (let v = 0; v < n; v++) counts[lv[v]! * distinct.length + kind[v]!]!++
+  // Each row's tallest box (−1: no box), read off the counts for rowsHeight (row-bound.ts).
+  const tallest = new Float64Array(heights ? height : 0)
   const addVertex = (v: number, l: number, sign: number): void => {
     row[l]! += sign * (across[v]! + nodeGap)
     if (heights) counts[l * distinct.length + kind[v]!]! += sign
@@ -64,15 +67,11 @@ export function evenRows(g: Digraph, level: Int32Array, across: ArrayLike<number
       squares += row[l]! * row[l]!
     }
     if (!heights) return [max, squares]
-    let tall = 0
-    let used = 0
     for (let l = 0; l < height; l++) {
       const k = distinct.findIndex((_, i) => counts[l * distinct.length + i]! > 0)
-      if (k < 0) continue
-      tall += distinct[k]!
-      used++
+      tallest[l] = k < 0 ? -1 : distinct[k]!
     }
-    return [max * (tall + Math.max(0, used - 1) * heights.layerGap), squares]
+    return [max * rowsHeight(tallest, heights.layerGap), squares]
   }
   const better = (a: [number, number], b: [number, number]): boolean => a[0] < b[0] - 1e-9 || (a[0] <= b[0] + 1e-9 && a[1] < b[1] - 1e-6)
   let changed = false
