@@ -72,6 +72,10 @@ function benchInput(name: string) {
 
 const rows = (l: Layout): number => new Set(l.nodes.map((n) => n.y)).size
 const area = (l: Layout): number => l.width * l.height
+/** The same-height rule: beside this st-layout, fewer rows or at most SAME_ROWS_GAIN of its area. */
+const sameHeightAllows = (st: Layout, l: Layout): boolean => rows(l) < rows(st) || area(l) <= SAME_ROWS_GAIN * area(st)
+/** What layoutSmallest may keep beside this st-layout: as many vertices in written order, and the rule above. */
+const keepableBy = (g: Digraph, st: Layout) => (l: Layout): boolean => writtenOrderKept(g, l) >= writtenOrderKept(g, st) && sameHeightAllows(st, l)
 
 describe('area-searched candidate', () => {
   it('g.10.93: draws under dagre\'s area where the candidates before it keep nothing that small', () => {
@@ -87,8 +91,7 @@ describe('area-searched candidate', () => {
     const drawn = layoutCandidates(input)
     const stLayout = drawn[0]!.layout
     // What layoutSmallest may keep: the written order of the st-layout, and the same-height rule.
-    const keepable = (l: Layout): boolean =>
-      writtenOrderKept(g, l) >= writtenOrderKept(g, stLayout) && (rows(l) < rows(stLayout) || area(l) <= SAME_ROWS_GAIN * area(stLayout))
+    const keepable = keepableBy(g, stLayout)
     const first = drawn.findIndex((d) => d.kind === 'area-searched')
     expect(first).toBeGreaterThan(0)
     const before = drawn.slice(0, first).filter((d, k) => k === 0 || keepable(d.layout))
@@ -111,7 +114,7 @@ describe('area-searched candidate', () => {
     const stLayout = drawn[0]!.layout
     const stSet = inWrittenOrder(g, stLayout)
     const keepable = (l: Layout): boolean =>
-      inWrittenOrder(g, l).length >= stSet.length && (rows(l) < rows(stLayout) || area(l) <= SAME_ROWS_GAIN * area(stLayout))
+      inWrittenOrder(g, l).length >= stSet.length && sameHeightAllows(stLayout, l)
     const first = drawn.findIndex((d) => d.kind === 'area-searched')
     expect(first).toBeGreaterThan(0)
     const before = Math.min(...drawn.slice(0, first).filter((d, k) => k === 0 || keepable(d.layout)).map((d) => area(d.layout)))
@@ -134,14 +137,13 @@ describe('area-searched candidate', () => {
       const reference = dagreArea(g, input.boxes)
       const drawn = layoutCandidates(input)
       const stLayout = drawn[0]!.layout
-      const keepable = (l: Layout): boolean =>
-        writtenOrderKept(g, l) >= writtenOrderKept(g, stLayout) && (rows(l) < rows(stLayout) || area(l) <= SAME_ROWS_GAIN * area(stLayout))
+      const keepable = keepableBy(g, stLayout)
       const first = drawn.findIndex((d) => d.kind === 'deep-searched')
       expect(first, name).toBeGreaterThan(0)
       expect(drawn.slice(first).every((d) => d.kind === 'deep-searched'), name).toBe(true)
       // Before it: nothing under dagre's area that keeps the written order (nor any drawing at all
       // under it, written order or not, that the same-height rule allows).
-      const before = drawn.slice(0, first).filter((d, k) => k === 0 || rows(d.layout) < rows(stLayout) || area(d.layout) <= SAME_ROWS_GAIN * area(stLayout))
+      const before = drawn.slice(0, first).filter((d, k) => k === 0 || sameHeightAllows(stLayout, d.layout))
       expect(Math.min(...before.map((d) => area(d.layout))), name).toBeGreaterThan(reference)
       const kept = layoutSmallest(input)
       expect(kept.kind, name).toBe('deep-searched')

@@ -108,18 +108,20 @@ describe('North DAGs: every candidate drawing checked, rows against networkx', (
         // Written order: a drawing with k vertices fewer in written order than the st-layout only at
         // WRITTEN_GAIN^k of the smallest eligible drawing that keeps it (the st-layout among them);
         // and the kept drawing is the smallest eligible one that qualifies.
+        // Both against the eligible drawings among `list` (all of them, or those before a step).
         const floor = writtenOrderKept(g, drawn[0]!.layout)
-        const inOrder = Math.min(...eligible.filter((d) => writtenOrderKept(g, d.layout) >= floor).map((d) => area(d.layout)))
-        const qualifies = (l: Layout): boolean => area(l) <= WRITTEN_GAIN ** Math.max(0, floor - writtenOrderKept(g, l)) * inOrder
-        const least = Math.min(...eligible.filter((d) => qualifies(d.layout)).map((d) => area(d.layout)))
-        if (!qualifies(kept.layout)) failures.push(`${dag.file}: kept a drawing with less written order without a clear gain`)
+        const qualifiesAmong = (list: typeof drawn): ((l: Layout) => boolean) => {
+          const inOrder = Math.min(...list.filter((d) => eligible.includes(d) && writtenOrderKept(g, d.layout) >= floor).map((d) => area(d.layout)))
+          return (l) => area(l) <= WRITTEN_GAIN ** Math.max(0, floor - writtenOrderKept(g, l)) * inOrder
+        }
+        const keptArea = (list: typeof drawn): number => {
+          const qualifies = qualifiesAmong(list)
+          return Math.min(...list.filter((d) => eligible.includes(d) && qualifies(d.layout)).map((d) => area(d.layout)))
+        }
+        const least = keptArea(drawn)
+        if (!qualifiesAmong(drawn)(kept.layout)) failures.push(`${dag.file}: kept a drawing with less written order without a clear gain`)
         // The last two steps (rows evened out by area, the deep search) only add drawings below the one
         // that would be kept from the drawings before each, so the kept drawing never grows.
-        const keptArea = (list: typeof drawn): number => {
-          const allowed = list.filter((d) => eligible.includes(d))
-          const ordered = Math.min(...allowed.filter((d) => writtenOrderKept(g, d.layout) >= floor).map((d) => area(d.layout)))
-          return Math.min(...allowed.filter((d) => area(d.layout) <= WRITTEN_GAIN ** Math.max(0, floor - writtenOrderKept(g, d.layout)) * ordered).map((d) => area(d.layout)))
-        }
         const late = (d: (typeof drawn)[number]): boolean => d.kind === 'area-evened' || d.kind === 'deep-searched'
         const early = keptArea(drawn.filter((d) => !late(d)))
         if (area(kept.layout) > early) failures.push(`${dag.file}: the last steps made the kept drawing larger (${area(kept.layout)} > ${early})`)
