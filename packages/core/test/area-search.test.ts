@@ -16,10 +16,12 @@
  * forced drew it; it passes the geometric checker and is smaller than every drawing before the
  * area-searched ones that layoutSmallest may keep.
  *
- * g.21.34, g.23.99, g.31.0 (same boxes): the deep search (the area search once more, last, on deeper
- * budgets, below the drawing that would be kept) draws each under dagre's area; no drawing before it
- * that the same-height rule allows is under it (bench/layout.ts had them at 1.178, 1.069 and 1.043 of
- * dagre's area at b9fda0b). Fails with the deep search's budget at 0.
+ * g.21.34, g.23.99 (same boxes): the deep search (the area search once more, last, on deeper budgets,
+ * below the drawing that would be kept) draws each under dagre's area; no drawing before it that the
+ * same-height rule allows is under it (bench/layout.ts had them at 1.178 and 1.069 of dagre's area at
+ * b9fda0b). Fails with the deep search's budget at 0. (g.31.0 was a third until the deep search's
+ * finds had to lower the area times the total edge length as well: its find, 0.945 of the area for
+ * 1.34 times the edge length, is no longer offered.)
  *
  * g.49.17 (same boxes): the last step, the kept drawing's rows evened out by area (balance-rows.ts
  * with the rows' heights), draws it under dagre's area (1.016 of it before); no drawing before it is
@@ -130,8 +132,8 @@ describe('area-searched candidate', () => {
     expect(area(layoutSmallest(input).layout)).toBeLessThanOrEqual(area(searched.layout))
   })
 
-  it('g.21.34, g.23.99, g.31.0: the deep search draws under dagre\'s area where nothing before it that layoutSmallest may keep does', () => {
-    for (const name of ['g.21.34', 'g.23.99', 'g.31.0']) {
+  it('g.21.34, g.23.99: the deep search draws under dagre\'s area where nothing before it that layoutSmallest may keep does', () => {
+    for (const name of ['g.21.34', 'g.23.99']) {
       const input = benchInput(name)
       const g = input.graph
       const reference = dagreArea(g, input.boxes)

@@ -125,8 +125,17 @@ describe('North DAGs: every candidate drawing checked, rows against networkx', (
         const late = (d: (typeof drawn)[number]): boolean => d.kind === 'area-evened' || d.kind === 'deep-searched'
         const early = keptArea(drawn.filter((d) => !late(d)))
         if (area(kept.layout) > early) failures.push(`${dag.file}: the last steps made the kept drawing larger (${area(kept.layout)} > ${early})`)
+        // Each also below it in area times total edge length (computed here from the polylines): the
+        // last steps may not add more ink than they save room.
+        const ink = (l: Layout): number => area(l) * l.edges.reduce((sum, {points}) => sum + points.slice(1).reduce((s, p, i) => s + Math.hypot(p[0] - points[i]![0], p[1] - points[i]![1]), 0), 0)
         drawn.forEach((d, k) => {
-          if (late(d) && area(d.layout) >= keptArea(drawn.slice(0, k).filter((e) => e.kind !== d.kind))) failures.push(`${dag.file}: a ${d.kind} drawing not below the drawing kept before it`)
+          if (!late(d)) return
+          const before = drawn.slice(0, k).filter((e) => e.kind !== d.kind)
+          const beforeArea = keptArea(before)
+          if (area(d.layout) >= beforeArea) failures.push(`${dag.file}: a ${d.kind} drawing not below the drawing kept before it`)
+          const qualifies = qualifiesAmong(before)
+          const keptBefore = before.find((e) => eligible.includes(e) && qualifies(e.layout) && area(e.layout) === beforeArea)!
+          if (ink(d.layout) >= ink(keptBefore.layout)) failures.push(`${dag.file}: a ${d.kind} drawing with more area times edge length than the drawing kept before it`)
         })
         if (area(kept.layout) < early) lateSmaller++
         if (area(kept.layout) !== least) failures.push(`${dag.file}: kept ${area(kept.layout)}, the smallest that qualifies is ${least}`)

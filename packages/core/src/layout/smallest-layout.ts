@@ -9,7 +9,9 @@
  * Then the smallest drawing kept so far is tried once more with one spare row (balance-rows.ts:
  * evenRowsWithSpare), on budgets of its own; then the area search runs once more on deeper budgets,
  * below the drawing that would be kept, and last that drawing's rows are evened out by area (tall
- * boxes sharing rows); both offer only drawings below it, so they can only make it smaller.
+ * boxes sharing rows); both offer only drawings below it, so they can only make it smaller, and only
+ * drawings that also lower its area times its total edge length (lessInk), so they do not buy a little
+ * room with long winding edges.
  *
  * The level candidates are tried only up to `maxEdges` edges (the level test is quadratic in the
  * level widths; past that size the st-layout alone is used, which is linear) and each test is bounded
@@ -40,6 +42,7 @@ import {checkLevelDrawing} from '../level/check-level-drawing.ts'
 import {layoutUpward} from './layout-upward.ts'
 import {dropEmptyLevels, evenRows, evenRowsWithSpare} from './balance-rows.ts'
 import {searchByArea} from './area-search.ts'
+import {totalEdgeLength} from './stats.ts'
 import type {Digraph} from '../graph/digraph.ts'
 import type {Layout, LayoutInput} from './types.ts'
 
@@ -231,6 +234,18 @@ function paysForOrder(g: Digraph, floor: number, layout: Layout, inOrder: number
 }
 
 /**
+ * Whether a drawing of the last steps (the deep search, the rows evened out by area) is worth
+ * offering in place of `kept`, besides being smaller: its area times its total edge length must be
+ * lower too, so it saves more room than it adds ink. Those steps fold wide rows and fans over more
+ * rows; without this, some folds bought a few percent of area with bundles of long edges winding
+ * round the rows (g.14.68 of the North DAGs: 0.985 of the area for 1.4 times the edge length;
+ * bench/README.md). O(points).
+ */
+function lessInk(layout: Layout, kept: Layout): boolean {
+  return layout.width * layout.height * totalEdgeLength(layout) < kept.width * kept.height * totalEdgeLength(kept)
+}
+
+/**
  * Whether layoutSmallest may keep a level drawing beside this st-layout: the written-order rule
  * (with `keep`) and the same-height rule (SAME_ROWS_GAIN).
  */
@@ -312,9 +327,9 @@ export function layoutCandidates(input: LayoutInput, options: Readonly<SmallestL
   const along = halfV.map((h) => 2 * h)
   /**
    * One area search (area-search.ts) below `area`, on these budgets; a find is offered to
-   * layoutSmallest, as `kind`, only when drawn below `below` too.
+   * layoutSmallest, as `kind`, only when drawn below `below` too and `worth` it.
    */
-  const searchArea = (kind: 'area-searched' | 'deep-searched', area: number, below: number, guides: Int32Array[], budget: AreaBudget): void =>
+  const searchArea = (kind: 'area-searched' | 'deep-searched', area: number, below: number, guides: Int32Array[], budget: AreaBudget, worth: (l: Layout) => boolean = () => true): void =>
     searchByArea(g, {
       across: rows.across,
       along,
@@ -342,7 +357,7 @@ export function layoutCandidates(input: LayoutInput, options: Readonly<SmallestL
       measure: (level, orders) => {
         const layout = draw(level, writtenOrderFacing(g, level, orders))
         const area = layout.width * layout.height
-        if (area > cap(rowCount(layout)) || area >= below) return Infinity
+        if (area > cap(rowCount(layout)) || area >= below || !worth(layout)) return Infinity
         if (!kept(layout)) {
           // Out of written order (the retry's searches without it): offered to layoutSmallest when
           // the same-height rule allows it and it pays for each vertex it gives up (WRITTEN_GAIN); the
@@ -379,7 +394,7 @@ export function layoutCandidates(input: LayoutInput, options: Readonly<SmallestL
   const now = choose(g, out, true).layout
   for (const c of out) if (kept(c.layout)) inOrder = Math.min(inOrder, c.layout.width * c.layout.height)
   const guides = [now, ...out.filter((c) => kept(c.layout)).map((c) => c.layout).sort((a, b) => a.width * a.height - b.width * b.height)].map((l) => rowsOf(g, l))
-  searchArea('deep-searched', now.width * now.height, now.width * now.height, guides, {tests: DEEP_TESTS, steps: DEEP_STEPS, perSearch: DEEP_PER_SEARCH, retryTests: DEEP_RETRY_TESTS, retrySteps: DEEP_RETRY_STEPS, work: DEEP_WORK})
+  searchArea('deep-searched', now.width * now.height, now.width * now.height, guides, {tests: DEEP_TESTS, steps: DEEP_STEPS, perSearch: DEEP_PER_SEARCH, retryTests: DEEP_RETRY_TESTS, retrySteps: DEEP_RETRY_STEPS, work: DEEP_WORK}, (l) => lessInk(l, now))
   // Last, the rows of the drawing that would be kept, evened out by area (balance-rows.ts with the
   // rows' heights: single vertices moved where that lowers the widest row times the rows' height, so
   // tall boxes can share rows), else by widths alone, the moves the level test's odd cycle blames set
@@ -401,7 +416,7 @@ export function layoutCandidates(input: LayoutInput, options: Readonly<SmallestL
         const tested = paidLevelTest(g, level, stPlaces, tests)
         if (tested?.status === 'planar') {
           const {layout} = finish(level, tested.orders, repairs.repair, repairs.forcing, repairs.narrow)
-          if (layout.width * layout.height < before.width * before.height) out.push({layout, kind: 'area-evened', balanced: true})
+          if (layout.width * layout.height < before.width * before.height && lessInk(layout, before)) out.push({layout, kind: 'area-evened', balanced: true})
         }
         if (tested?.status !== 'not-planar') break
         raw = undoMoves(g, from, raw, tested.edges)

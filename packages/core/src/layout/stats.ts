@@ -21,20 +21,23 @@ export interface LayoutStats {
 
 export function layoutStats(layout: Layout): LayoutStats {
   let bends = 0
-  let length = 0
-  for (const {points} of layout.edges) {
-    bends += Math.max(0, points.length - 2)
-    for (let i = 1; i < points.length; i++) {
-      length += Math.hypot(points[i]![0] - points[i - 1]![0], points[i]![1] - points[i - 1]![1])
-    }
-  }
+  for (const {points} of layout.edges) bends += Math.max(0, points.length - 2)
   return {
     area: layout.width * layout.height,
     aspectRatio: layout.height > 0 ? layout.width / layout.height : 1,
     bends,
-    totalEdgeLength: length,
+    totalEdgeLength: totalEdgeLength(layout),
     crossings: countCrossings(layout),
   }
+}
+
+/** The summed length of every edge's polyline. O(points). */
+export function totalEdgeLength(layout: Layout): number {
+  let length = 0
+  for (const {points} of layout.edges) {
+    for (let i = 1; i < points.length; i++) length += Math.hypot(points[i]![0] - points[i - 1]![0], points[i]![1] - points[i - 1]![1])
+  }
+  return length
 }
 
 function orient(ax: number, ay: number, bx: number, by: number, cx: number, cy: number): number {
