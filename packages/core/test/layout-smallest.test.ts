@@ -96,15 +96,19 @@ describe('North DAGs: every candidate drawing checked, rows against networkx', (
         const kept = layoutSmallest({graph: g, st, boxes, flow})
         const area = (l: Layout): number => l.width * l.height
         const smallest = layoutSmallest({graph: g, st, boxes, flow}, {keepWrittenOrder: false})
+        // Area times total edge length, the lengths summed here from the polylines.
+        const ink = (l: Layout): number => area(l) * l.edges.reduce((sum, {points}) => sum + points.slice(1).reduce((s, p, i) => s + Math.hypot(p[0] - points[i]![0], p[1] - points[i]![1]), 0), 0)
         // Eligible: the st-layout, a drawing with fewer rows, or one at most SAME_ROWS_GAIN of its area.
-        // A drawing with exactly the st-layout's rows moves no vertex and needs no gain.
+        // A drawing with exactly the st-layout's rows moves no vertex and needs no gain. Either way
+        // with less area times edge length than the st-layout.
         const stRowsOf = rowPartition(drawn[0]!.layout)
-        const eligible = drawn.filter((d, k) => k === 0 || rows(d.layout) < rows(drawn[0]!.layout) || area(d.layout) <= SAME_ROWS_GAIN * area(drawn[0]!.layout) || rowPartition(d.layout) === stRowsOf)
+        const eligible = drawn.filter((d, k) => k === 0 || ((rows(d.layout) < rows(drawn[0]!.layout) || area(d.layout) <= SAME_ROWS_GAIN * area(drawn[0]!.layout) || rowPartition(d.layout) === stRowsOf) && ink(d.layout) < ink(drawn[0]!.layout)))
         if (eligible.some((d) => area(d.layout) < area(smallest.layout))) failures.push(`${dag.file}: a smaller candidate was not kept`)
         for (const k of [kept, smallest]) {
           if (k.kind !== 'st' && rows(k.layout) >= rows(drawn[0]!.layout) && area(k.layout) > SAME_ROWS_GAIN * area(drawn[0]!.layout) && rowPartition(k.layout) !== stRowsOf) failures.push(`${dag.file}: kept a same-height drawing without a clear gain`)
         }
         if (area(kept.layout) > area(drawn[0]!.layout)) failures.push(`${dag.file}: kept a drawing larger than the st-layout`)
+        for (const k of [kept, smallest]) if (k.kind !== 'st' && ink(k.layout) >= ink(drawn[0]!.layout)) failures.push(`${dag.file}: kept a drawing with more area times edge length than the st-layout`)
         // Written order: a drawing with k vertices fewer in written order than the st-layout only at
         // WRITTEN_GAIN^k of the smallest eligible drawing that keeps it (the st-layout among them);
         // and the kept drawing is the smallest eligible one that qualifies.
@@ -125,9 +129,8 @@ describe('North DAGs: every candidate drawing checked, rows against networkx', (
         const late = (d: (typeof drawn)[number]): boolean => d.kind === 'area-evened' || d.kind === 'deep-searched'
         const early = keptArea(drawn.filter((d) => !late(d)))
         if (area(kept.layout) > early) failures.push(`${dag.file}: the last steps made the kept drawing larger (${area(kept.layout)} > ${early})`)
-        // Each also below it in area times total edge length (computed here from the polylines): the
-        // last steps may not add more ink than they save room.
-        const ink = (l: Layout): number => area(l) * l.edges.reduce((sum, {points}) => sum + points.slice(1).reduce((s, p, i) => s + Math.hypot(p[0] - points[i]![0], p[1] - points[i]![1]), 0), 0)
+        // Each also below it in area times total edge length: the last steps may not add more ink than
+        // they save room.
         drawn.forEach((d, k) => {
           if (!late(d)) return
           const before = drawn.slice(0, k).filter((e) => e.kind !== d.kind)

@@ -2,9 +2,11 @@
  * The drawing a diagram without tiers gets: the smallest in area among the st-layout
  * (layout-upward.ts, rows from the st-augmentation H) and level drawings (level-layout.ts) of the
  * level-planar assignments with fewer rows that level-candidates.ts finds. All are upward and
- * crossing-free by construction; the choice only compares width × height and row counts, so it is
- * deterministic (no clock). Ties keep the earlier candidate, the st-layout first. A level drawing with
- * as many rows as the st-layout must be clearly smaller (SAME_ROWS_GAIN).
+ * crossing-free by construction; the choice only compares width × height, row counts and total edge
+ * lengths, so it is deterministic (no clock). Ties keep the earlier candidate, the st-layout first. A
+ * level drawing with as many rows as the st-layout must be clearly smaller (SAME_ROWS_GAIN), and any
+ * level drawing must have less area times total edge length than the st-layout (lessInk): a smaller
+ * drawing whose edges wind round the rows reads worse than the st-layout's.
  *
  * Then the smallest drawing kept so far is tried once more with one spare row (balance-rows.ts:
  * evenRowsWithSpare), on budgets of its own; then the area search runs once more on deeper budgets,
@@ -234,12 +236,13 @@ function paysForOrder(g: Digraph, floor: number, layout: Layout, inOrder: number
 }
 
 /**
- * Whether a drawing of the last steps (the deep search, the rows evened out by area) is worth
- * offering in place of `kept`, besides being smaller: its area times its total edge length must be
- * lower too, so it saves more room than it adds ink. Those steps fold wide rows and fans over more
- * rows; without this, some folds bought a few percent of area with bundles of long edges winding
- * round the rows (g.14.68 of the North DAGs: 0.985 of the area for 1.4 times the edge length;
- * bench/README.md). O(points).
+ * Whether `layout` has less area times total edge length than `kept`: it saves more room than it
+ * adds ink. A level drawing must have less than the st-layout (keptBy), and a drawing of the last
+ * steps (the deep search, the rows evened out by area) less than the drawing it would replace. Those
+ * drawings fold wide rows and fans over more rows; without this, some folds bought a few percent of
+ * area with bundles of long edges winding round the rows (g.14.68 of the North DAGs: 0.985 of the
+ * area for 1.4 times the edge length), and some small trees were drawn as cramped columns
+ * (bench/README.md). O(points).
  */
 function lessInk(layout: Layout, kept: Layout): boolean {
   return layout.width * layout.height * totalEdgeLength(layout) < kept.width * kept.height * totalEdgeLength(kept)
@@ -247,7 +250,7 @@ function lessInk(layout: Layout, kept: Layout): boolean {
 
 /**
  * Whether layoutSmallest may keep a level drawing beside this st-layout: the written-order rule
- * (with `keep`) and the same-height rule (SAME_ROWS_GAIN).
+ * (with `keep`), the same-height rule (SAME_ROWS_GAIN), and less ink than the st-layout (lessInk).
  */
 function keptBy(g: Digraph, st: Layout, keep: boolean): (l: Layout) => boolean {
   const floor = keep ? writtenOrderKept(g, st) : 0
@@ -256,7 +259,8 @@ function keptBy(g: Digraph, st: Layout, keep: boolean): (l: Layout) => boolean {
   const stLevels = rowsOf(g, st).join(',')
   return (l) =>
     !(keep && writtenOrderKept(g, l) < floor) &&
-    !(rowCount(l) >= stRows && l.width * l.height > SAME_ROWS_GAIN * stArea && rowsOf(g, l).join(',') !== stLevels)
+    !(rowCount(l) >= stRows && l.width * l.height > SAME_ROWS_GAIN * stArea && rowsOf(g, l).join(',') !== stLevels) &&
+    lessInk(l, st)
 }
 
 /** Every drawing layoutSmallest compares, the st-layout first (for tests and benches). */
