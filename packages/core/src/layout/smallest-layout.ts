@@ -5,14 +5,14 @@
  * crossing-free by construction; the choice only compares width × height, row counts and total edge
  * lengths, so it is deterministic (no clock). Ties keep the earlier candidate, the st-layout first. A
  * level drawing with as many rows as the st-layout must be clearly smaller (SAME_ROWS_GAIN), and any
- * level drawing must have less area times total edge length than the st-layout (lessInk): a smaller
+ * level drawing must have less area times total edge length than the st-layout (`ink`): a smaller
  * drawing whose edges wind round the rows reads worse than the st-layout's.
  *
  * Then the smallest drawing kept so far is tried once more with one spare row (balance-rows.ts:
  * evenRowsWithSpare), on budgets of its own; then the area search runs once more on deeper budgets,
  * below the drawing that would be kept, and last that drawing's rows are evened out by area (tall
  * boxes sharing rows); both offer only drawings below it, so they can only make it smaller, and only
- * drawings that also lower its area times its total edge length (lessInk), so they do not buy a little
+ * drawings that also lower its area times its total edge length (`ink`), so they do not buy a little
  * room with long winding edges.
  *
  * The level candidates are tried only up to `maxEdges` edges (the level test is quadratic in the
@@ -236,31 +236,32 @@ function paysForOrder(g: Digraph, floor: number, layout: Layout, inOrder: number
 }
 
 /**
- * Whether `layout` has less area times total edge length than `kept`: it saves more room than it
- * adds ink. A level drawing must have less than the st-layout (keptBy), and a drawing of the last
- * steps (the deep search, the rows evened out by area) less than the drawing it would replace. Those
- * drawings fold wide rows and fans over more rows; without this, some folds bought a few percent of
- * area with bundles of long edges winding round the rows (g.14.68 of the North DAGs: 0.985 of the
- * area for 1.4 times the edge length), and some small trees were drawn as cramped columns
- * (bench/README.md). O(points).
+ * A drawing's area times its total edge length. A drawing with less than another saves more room
+ * than it adds ink: a level drawing must have less than the st-layout (keptBy), and a drawing of the
+ * last steps (the deep search, the rows evened out by area) less than the drawing it would replace.
+ * Those drawings fold wide rows and fans over more rows; without this, some folds bought a few
+ * percent of area with bundles of long edges winding round the rows (g.14.68 of the North DAGs:
+ * 0.985 of the area for 1.4 times the edge length), and some small trees were drawn as cramped
+ * columns (bench/README.md). Callers compute the side they compare against once. O(points).
  */
-function lessInk(layout: Layout, kept: Layout): boolean {
-  return layout.width * layout.height * totalEdgeLength(layout) < kept.width * kept.height * totalEdgeLength(kept)
+function ink(layout: Layout): number {
+  return layout.width * layout.height * totalEdgeLength(layout)
 }
 
 /**
  * Whether layoutSmallest may keep a level drawing beside this st-layout: the written-order rule
- * (with `keep`), the same-height rule (SAME_ROWS_GAIN), and less ink than the st-layout (lessInk).
+ * (with `keep`), the same-height rule (SAME_ROWS_GAIN), and less ink than the st-layout (`ink`).
  */
 function keptBy(g: Digraph, st: Layout, keep: boolean): (l: Layout) => boolean {
   const floor = keep ? writtenOrderKept(g, st) : 0
   const stRows = rowCount(st)
   const stArea = st.width * st.height
   const stLevels = rowsOf(g, st).join(',')
+  const stInk = ink(st)
   return (l) =>
     !(keep && writtenOrderKept(g, l) < floor) &&
     !(rowCount(l) >= stRows && l.width * l.height > SAME_ROWS_GAIN * stArea && rowsOf(g, l).join(',') !== stLevels) &&
-    lessInk(l, st)
+    ink(l) < stInk
 }
 
 /** Every drawing layoutSmallest compares, the st-layout first (for tests and benches). */
@@ -396,9 +397,10 @@ export function layoutCandidates(input: LayoutInput, options: Readonly<SmallestL
   // smaller, never larger (larger budgets in the search above change what it steers, both ways:
   // bench/README.md). Guides: the rows of that drawing first, then those of the keepable ones.
   const now = choose(g, out, true).layout
+  const nowInk = ink(now)
   for (const c of out) if (kept(c.layout)) inOrder = Math.min(inOrder, c.layout.width * c.layout.height)
   const guides = [now, ...out.filter((c) => kept(c.layout)).map((c) => c.layout).sort((a, b) => a.width * a.height - b.width * b.height)].map((l) => rowsOf(g, l))
-  searchArea('deep-searched', now.width * now.height, now.width * now.height, guides, {tests: DEEP_TESTS, steps: DEEP_STEPS, perSearch: DEEP_PER_SEARCH, retryTests: DEEP_RETRY_TESTS, retrySteps: DEEP_RETRY_STEPS, work: DEEP_WORK}, (l) => lessInk(l, now))
+  searchArea('deep-searched', now.width * now.height, now.width * now.height, guides, {tests: DEEP_TESTS, steps: DEEP_STEPS, perSearch: DEEP_PER_SEARCH, retryTests: DEEP_RETRY_TESTS, retrySteps: DEEP_RETRY_STEPS, work: DEEP_WORK}, (l) => ink(l) < nowInk)
   // Last, the rows of the drawing that would be kept, evened out by area (balance-rows.ts with the
   // rows' heights: single vertices moved where that lowers the widest row times the rows' height, so
   // tall boxes can share rows), else by widths alone, the moves the level test's odd cycle blames set
@@ -408,6 +410,7 @@ export function layoutCandidates(input: LayoutInput, options: Readonly<SmallestL
   // After the deep search, whose bound and guides it would change both ways (bench/README.md).
   for (let pass = 0; pass < EVEN_PASSES; pass++) {
     const before = choose(g, out, true).layout
+    const beforeInk = ink(before)
     const from = rowsOf(g, before)
     const tests = {tests: EVEN_TESTS, work: SPARE_WORK}
     const repairs = {repair: {tests: SPARE_TESTS, work: SPARE_WORK}, forcing: {tests: SPARE_FORCED_TESTS, work: SPARE_WORK, failed: new Map()} as ForcedBudget, narrow: {tests: NARROW_TESTS, work: NARROW_WORK}}
@@ -420,7 +423,7 @@ export function layoutCandidates(input: LayoutInput, options: Readonly<SmallestL
         const tested = paidLevelTest(g, level, stPlaces, tests)
         if (tested?.status === 'planar') {
           const {layout} = finish(level, tested.orders, repairs.repair, repairs.forcing, repairs.narrow)
-          if (layout.width * layout.height < before.width * before.height && lessInk(layout, before)) out.push({layout, kind: 'area-evened', balanced: true})
+          if (layout.width * layout.height < before.width * before.height && ink(layout) < beforeInk) out.push({layout, kind: 'area-evened', balanced: true})
         }
         if (tested?.status !== 'not-planar') break
         raw = undoMoves(g, from, raw, tested.edges)
