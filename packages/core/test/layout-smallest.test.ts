@@ -102,13 +102,14 @@ describe('North DAGs: every candidate drawing checked, rows against networkx', (
         // A drawing with exactly the st-layout's rows moves no vertex and needs no gain. Either way
         // with less area times edge length than the st-layout.
         const stRowsOf = rowPartition(drawn[0]!.layout)
-        const eligible = drawn.filter((d, k) => k === 0 || ((rows(d.layout) < rows(drawn[0]!.layout) || area(d.layout) <= SAME_ROWS_GAIN * area(drawn[0]!.layout) || rowPartition(d.layout) === stRowsOf) && ink(d.layout) < ink(drawn[0]!.layout)))
+        const stInk = ink(drawn[0]!.layout)
+        const eligible = drawn.filter((d, k) => k === 0 || ((rows(d.layout) < rows(drawn[0]!.layout) || area(d.layout) <= SAME_ROWS_GAIN * area(drawn[0]!.layout) || rowPartition(d.layout) === stRowsOf) && ink(d.layout) < stInk))
         if (eligible.some((d) => area(d.layout) < area(smallest.layout))) failures.push(`${dag.file}: a smaller candidate was not kept`)
         for (const k of [kept, smallest]) {
           if (k.kind !== 'st' && rows(k.layout) >= rows(drawn[0]!.layout) && area(k.layout) > SAME_ROWS_GAIN * area(drawn[0]!.layout) && rowPartition(k.layout) !== stRowsOf) failures.push(`${dag.file}: kept a same-height drawing without a clear gain`)
         }
         if (area(kept.layout) > area(drawn[0]!.layout)) failures.push(`${dag.file}: kept a drawing larger than the st-layout`)
-        for (const k of [kept, smallest]) if (k.kind !== 'st' && ink(k.layout) >= ink(drawn[0]!.layout)) failures.push(`${dag.file}: kept a drawing with more area times edge length than the st-layout`)
+        for (const k of [kept, smallest]) if (k.kind !== 'st' && ink(k.layout) >= stInk) failures.push(`${dag.file}: kept a drawing with more area times edge length than the st-layout`)
         // Written order: a drawing with k vertices fewer in written order than the st-layout only at
         // WRITTEN_GAIN^k of the smallest eligible drawing that keeps it (the st-layout among them);
         // and the kept drawing is the smallest eligible one that qualifies.
@@ -118,10 +119,13 @@ describe('North DAGs: every candidate drawing checked, rows against networkx', (
           const inOrder = Math.min(...list.filter((d) => eligible.includes(d) && writtenOrderKept(g, d.layout) >= floor).map((d) => area(d.layout)))
           return (l) => area(l) <= WRITTEN_GAIN ** Math.max(0, floor - writtenOrderKept(g, l)) * inOrder
         }
-        const keptArea = (list: typeof drawn): number => {
+        // The drawing layoutSmallest would keep from `list`: the first of least area among the eligible
+        // ones that qualify.
+        const keptAmong = (list: typeof drawn): (typeof drawn)[number] => {
           const qualifies = qualifiesAmong(list)
-          return Math.min(...list.filter((d) => eligible.includes(d) && qualifies(d.layout)).map((d) => area(d.layout)))
+          return list.filter((d) => eligible.includes(d) && qualifies(d.layout)).reduce((best, d) => (area(d.layout) < area(best.layout) ? d : best))
         }
+        const keptArea = (list: typeof drawn): number => area(keptAmong(list).layout)
         const least = keptArea(drawn)
         if (!qualifiesAmong(drawn)(kept.layout)) failures.push(`${dag.file}: kept a drawing with less written order without a clear gain`)
         // The last two steps (rows evened out by area, the deep search) only add drawings below the one
@@ -133,11 +137,8 @@ describe('North DAGs: every candidate drawing checked, rows against networkx', (
         // they save room.
         drawn.forEach((d, k) => {
           if (!late(d)) return
-          const before = drawn.slice(0, k).filter((e) => e.kind !== d.kind)
-          const beforeArea = keptArea(before)
-          if (area(d.layout) >= beforeArea) failures.push(`${dag.file}: a ${d.kind} drawing not below the drawing kept before it`)
-          const qualifies = qualifiesAmong(before)
-          const keptBefore = before.find((e) => eligible.includes(e) && qualifies(e.layout) && area(e.layout) === beforeArea)!
+          const keptBefore = keptAmong(drawn.slice(0, k).filter((e) => e.kind !== d.kind))
+          if (area(d.layout) >= area(keptBefore.layout)) failures.push(`${dag.file}: a ${d.kind} drawing not below the drawing kept before it`)
           if (ink(d.layout) >= ink(keptBefore.layout)) failures.push(`${dag.file}: a ${d.kind} drawing with more area times edge length than the drawing kept before it`)
         })
         if (area(kept.layout) < early) lateSmaller++
